@@ -14,7 +14,7 @@ Severity = Literal["error", "warning"]
 
 @dataclass(frozen=True)
 class Problem:
-    """One thing wrong (or worth a warning) in an input file, located as the spreadsheet shows it."""
+    """One thing wrong (or worth a warning) in an input file, located as a spreadsheet shows it."""
 
     file: str
     message: str

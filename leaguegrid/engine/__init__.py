@@ -1,0 +1,36 @@
+"""The counting engine: exact chromatic polynomials, counts of round assignments, the fewest
+rounds, uniform draws and labelled estimates. Pure: no Qt, no file I/O."""
+
+from .api import (
+    chromatic_polynomial,
+    count_all_rounds_used,
+    count_assignments,
+    estimate_assignments,
+    groupings,
+    min_rounds,
+    min_rounds_bounds,
+    sample_assignment,
+    sample_assignments,
+)
+from .cost import Cost, estimate_cost
+from .estimate import Estimate
+from .hooks import BudgetExceeded, Cancelled, Hooks, NoAssignment
+
+__all__ = [
+    "BudgetExceeded",
+    "Cancelled",
+    "Cost",
+    "Estimate",
+    "Hooks",
+    "NoAssignment",
+    "chromatic_polynomial",
+    "count_all_rounds_used",
+    "count_assignments",
+    "estimate_assignments",
+    "estimate_cost",
+    "groupings",
+    "min_rounds",
+    "min_rounds_bounds",
+    "sample_assignment",
+    "sample_assignments",
+]

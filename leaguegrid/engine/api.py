@@ -1,0 +1,319 @@
+"""The public engine functions: networkx graphs in, exact integers and fmpz_poly out."""
+
+from __future__ import annotations
+
+import itertools
+import math
+import random
+from collections.abc import Hashable, Iterable, Mapping
+
+import networkx as nx
+from flint import fmpz_poly
+
+from . import solve
+from .chromatic_number import domains_for, find_assignment, greedy_assignment, max_clique
+from .estimate import Estimate, sis_estimate
+from .falling import falling, to_falling
+from .graph import Graph, from_networkx
+from .hooks import BudgetExceeded, Hooks, NoAssignment, Ticker
+from .pins import assignment_back, transform
+from .sampling import Sampler
+
+Pins = Mapping[Hashable, int]
+Exclusions = Mapping[Hashable, Iterable[int]]
+
+BOUNDS_SECONDS = 2.0  # default effort of min_rounds_bounds when the caller gives no budget
+
+
+def _prepare(
+    G: nx.Graph, pins: Pins | None, exclusions: Exclusions | None
+) -> tuple[Graph, list[Hashable], dict[int, int], dict[int, set[int]]]:
+    """The engine graph, its node list, and pins/exclusions keyed by vertex index."""
+    g, nodes = from_networkx(G)
+    index = {v: i for i, v in enumerate(nodes)}
+    ip: dict[int, int] = {}
+    for node, r in (pins or {}).items():
+        if node not in index:
+            raise ValueError(f"pinned fixture {node!r} is not in the graph")
+        if not isinstance(r, int) or isinstance(r, bool) or r < 1:
+            raise ValueError(f"pinned round {r!r} of {node!r} is not a positive whole number")
+        ip[index[node]] = r
+    ie: dict[int, set[int]] = {}
+    for node, rs in (exclusions or {}).items():
+        if node not in index:
+            raise ValueError(f"excluded fixture {node!r} is not in the graph")
+        rounds = set()
+        for r in rs:
+            if not isinstance(r, int) or isinstance(r, bool) or r < 1:
+                raise ValueError(f"excluded round {r!r} of {node!r} is not a positive whole number")
+            rounds.add(r)
+        if rounds:
+            ie[index[node]] = rounds
+    return g, nodes, ip, ie
+
+
+def _check_k(k: int) -> None:
+    if not isinstance(k, int) or isinstance(k, bool) or k < 0:
+        raise ValueError(f"round count {k!r} is not a whole number >= 0")
+
+
+def _count(g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Ticker) -> int:
+    """Assignments of g to rounds 1..k honouring pins and exclusions."""
+    if k == 0:
+        return 1 if g.n == 0 else 0
+    if not ip and not ie:
+        return solve.value(g, k, ticker)
+    t = transform(g, k, ip, ie)
+    if t is None:
+        return 0
+    return solve.value(t.graph, k, ticker) // falling(k, len(t.reps))
+
+
+def _count_on_rounds(
+    g: Graph, rounds: list[int], ip: dict[int, int], ie: dict[int, set[int]], ticker: Ticker
+) -> int:
+    """Assignments using only the given rounds (renumbered 1..len(rounds))."""
+    new = {r: i + 1 for i, r in enumerate(rounds)}
+    pins = {}
+    for v, r in ip.items():
+        if r not in new:
+            return 0
+        pins[v] = new[r]
+    excl = {v: {new[r] for r in rs if r in new} for v, rs in ie.items()}
+    return _count(g, len(rounds), pins, {v: rs for v, rs in excl.items() if rs}, ticker)
+
+
+def chromatic_polynomial(G: nx.Graph, hooks: Hooks | None = None) -> fmpz_poly:
+    """P(G, x): the number of clash-free assignments to x rounds, as a polynomial."""
+    ticker = Ticker(hooks)
+    ticker.report(0.0, "starting")
+    g, _ = from_networkx(G)
+    p = solve.polynomial(g, ticker)
+    ticker.report(1.0, "done")
+    return p
+
+
+def count_assignments(
+    G: nx.Graph,
+    k: int,
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> int:
+    """Exact number of assignments to rounds 1..k with no clash in a round, pins and
+    exclusions respected (rounds may stay empty)."""
+    _check_k(k)
+    ticker = Ticker(hooks)
+    ticker.report(0.0, "starting")
+    g, _, ip, ie = _prepare(G, pins, exclusions)
+    out = _count(g, k, ip, ie, ticker)
+    ticker.report(1.0, "done")
+    return out
+
+
+def count_all_rounds_used(
+    G: nx.Graph,
+    k: int,
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> int:
+    """Exact number of assignments to rounds 1..k that use every round.
+
+    Inclusion-exclusion over the rounds left empty. Pinned rounds are never empty. The
+    other rounds are grouped by which fixtures exclude them; rounds in one group are
+    interchangeable, so only how many of each group are left out matters."""
+    _check_k(k)
+    ticker = Ticker(hooks)
+    ticker.report(0.0, "starting")
+    g, _, ip, ie = _prepare(G, pins, exclusions)
+    if k == 0:
+        return 1 if g.n == 0 else 0
+    pinned = set(ip.values())
+    groups: dict[frozenset[int], list[int]] = {}
+    for r in range(1, k + 1):
+        if r not in pinned:
+            key = frozenset(v for v, rs in ie.items() if r in rs)
+            groups.setdefault(key, []).append(r)
+    sizes = [len(rs) for rs in groups.values()]
+    combos = list(itertools.product(*(range(s + 1) for s in sizes)))
+    total = 0
+    for i, drop in enumerate(combos):
+        with ticker.window(i / len(combos), (i + 1) / len(combos)):
+            removed = set()
+            for rs, d in zip(groups.values(), drop, strict=True):
+                removed.update(rs[:d])
+            rounds = [r for r in range(1, k + 1) if r not in removed]
+            c = _count_on_rounds(g, rounds, ip, ie, ticker)
+        ways = math.prod(math.comb(s, d) for s, d in zip(sizes, drop, strict=True))
+        total += (-1) ** sum(drop) * ways * c
+    ticker.report(1.0, "done")
+    return total
+
+
+def groupings(G: nx.Graph, hooks: Hooks | None = None) -> list[int]:
+    """a_j for j = 0..n: the ways to split the fixtures into exactly j non-empty clash-free
+    rounds, rounds unordered (the falling-factorial coefficients of P)."""
+    p = chromatic_polynomial(G, hooks)
+    n = G.number_of_nodes()
+    a = to_falling(p)
+    return (a + [0] * (n + 1))[: n + 1]
+
+
+def _lower_bound(g: Graph, ip: dict[int, int], ticker: Ticker) -> int:
+    """A proven lower bound: the largest clique, and the largest pinned round."""
+    if g.n == 0:
+        return 0
+    return max(len(max_clique(g, ticker)), max(ip.values(), default=0), 1)
+
+
+def _special(k: int, ip: dict[int, int], ie: dict[int, set[int]]) -> int:
+    """Bitmask of rounds (bit r-1) that pins or exclusions single out."""
+    out = 0
+    for r in ip.values():
+        if r <= k:
+            out |= 1 << (r - 1)
+    for rs in ie.values():
+        for r in rs:
+            if r <= k:
+                out |= 1 << (r - 1)
+    return out
+
+
+def _never_possible(g: Graph, ip: dict[int, int], ie: dict[int, set[int]]) -> str | None:
+    """Why no number of rounds can work (clashing pins, pin to an excluded round), if so."""
+    if g.loop:
+        return "a fixture clashes with itself"
+    for v, r in ip.items():
+        if r in ie.get(v, ()):
+            return f"a fixture is pinned to round {r}, which it may not use"
+        for u, s in ip.items():
+            if u != v and s == r and g.adj[v] >> u & 1:
+                return f"two clashing fixtures are pinned to round {r}"
+    return None
+
+
+def min_rounds(
+    G: nx.Graph,
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> int:
+    """The fewest rounds that admit a valid assignment (exact; raises NoAssignment when
+    pins contradict the clashes, BudgetExceeded or Cancelled when stopped)."""
+    ticker = Ticker(hooks)
+    ticker.report(0.0, "starting")
+    g, _, ip, ie = _prepare(G, pins, exclusions)
+    why = _never_possible(g, ip, ie)
+    if why:
+        raise NoAssignment(why)
+    k = _lower_bound(g, ip, ticker)
+    while g.n:
+        doms = domains_for(g.n, k, ip, ie)
+        if doms is not None and find_assignment(g, k, doms, ticker, _special(k, ip, ie)):
+            break
+        k += 1
+    ticker.report(1.0, "done")
+    return k
+
+
+def min_rounds_bounds(
+    G: nx.Graph,
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> tuple[int, int]:
+    """Proven (low, high) for the fewest rounds: low from a clique, the largest pin and
+    exhaustive searches that failed; high from a schedule found. Equal when exact."""
+    hooks = hooks or Hooks()
+    budget = hooks.budget if hooks.budget is not None else BOUNDS_SECONDS
+    ticker = Ticker(Hooks(hooks.progress, hooks.cancel, budget))
+    ticker.report(0.0, "starting")
+    g, _, ip, ie = _prepare(G, pins, exclusions)
+    why = _never_possible(g, ip, ie)
+    if why:
+        raise NoAssignment(why)
+    if g.n == 0:
+        return 0, 0
+    low = _lower_bound(g, ip, ticker)
+    high, _ = greedy_assignment(g, lambda k: domains_for(g.n, k, ip, ie), ticker)
+    high = max(high, low)
+    try:
+        while low < high:
+            doms = domains_for(g.n, low, ip, ie)
+            if doms is not None and find_assignment(g, low, doms, ticker, _special(low, ip, ie)):
+                high = low
+            else:
+                low += 1
+    except BudgetExceeded:
+        pass
+    ticker.deadline = None
+    ticker.report(1.0, "done")
+    return low, high
+
+
+def sample_assignment(
+    G: nx.Graph,
+    k: int,
+    rng: random.Random,
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> dict[Hashable, int]:
+    """One valid assignment (node -> round in 1..k) drawn uniformly from all of them;
+    raises NoAssignment when there is none."""
+    return sample_assignments(G, k, rng, 1, pins, exclusions, hooks)[0]
+
+
+def sample_assignments(
+    G: nx.Graph,
+    k: int,
+    rng: random.Random,
+    count: int,
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> list[dict[Hashable, int]]:
+    """`count` independent uniform draws (the counting tables are built once for all)."""
+    _check_k(k)
+    ticker = Ticker(hooks)
+    ticker.report(0.0, "starting")
+    g, nodes, ip, ie = _prepare(G, pins, exclusions)
+    if g.n == 0:
+        return [{} for _ in range(count)]
+    t = transform(g, k, ip, ie) if k > 0 else None
+    if t is None:
+        raise NoAssignment(f"no valid assignment with {k} rounds")
+    with ticker.window(0.0, 0.9):
+        sampler = Sampler(t.graph, k, ticker)
+    if not sampler.possible:
+        raise NoAssignment(f"no valid assignment with {k} rounds")
+    out = []
+    for i in range(count):
+        if i % 64 == 0:
+            ticker.report(0.9 + 0.1 * i / count, "drawing")
+        rounds = assignment_back(t, sampler.draw(rng), k)
+        out.append({node: rounds[j] for j, node in enumerate(nodes)})
+    ticker.report(1.0, "done")
+    return out
+
+
+def estimate_assignments(
+    G: nx.Graph,
+    k: int,
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> Estimate:
+    """An estimate (never exact) of count_assignments, with an approximate interval."""
+    _check_k(k)
+    ticker = Ticker(hooks)
+    ticker.report(0.0, "starting")
+    g, _, ip, ie = _prepare(G, pins, exclusions)
+    doms = domains_for(g.n, k, ip, ie) if k > 0 else None
+    if doms is None or (g.loop and g.n):
+        zero = 1 if g.n == 0 else 0
+        return Estimate(zero, zero, zero, "exact: no assignment is possible")
+    est = sis_estimate(g, doms, ticker, random.Random(0))
+    ticker.report(1.0, "done")
+    return est

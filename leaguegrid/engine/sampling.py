@@ -1,0 +1,104 @@
+"""Exactly uniform draws of a valid assignment from the frontier programme's tables.
+
+The tables give, for every state before each step, its number of completions. Walking
+forward, every concrete choice for the next fixture (each allowed round by name) is taken
+with probability proportional to the completions of the state it leads to, so every valid
+assignment comes out with probability exactly 1 / P(G, k). The tables are built once per
+piece and reused for every draw.
+"""
+
+from __future__ import annotations
+
+import random
+
+from .frontier import State, completion_tables
+from .graph import Graph, components
+from .hooks import Ticker
+from .orders import greedy_order
+
+
+class PieceSampler:
+    """Uniform colourings of one connected piece with rounds 1..k."""
+
+    def __init__(self, g: Graph, k: int, ticker: Ticker) -> None:
+        self.g = g
+        self.k = k
+        self.order = greedy_order(g)
+        self.tables: list[dict[State, int]] = completion_tables(g, self.order, k, ticker)
+        self.total = self.tables[0].get((), 0)
+
+    def draw(self, rng: random.Random) -> list[int]:
+        """One colouring; requires self.total > 0."""
+        g, k = self.g, self.k
+        colours = [0] * g.n
+        active: dict[int, int] = {}  # round -> unplaced fixtures it rules out (non-empty)
+        rest = 0
+        for v in self.order:
+            rest |= 1 << v
+        for i, v in enumerate(self.order):
+            vb = 1 << v
+            rest &= ~vb
+            nb = g.adj[v] & rest
+            after = self.tables[i + 1]
+            others = {c: m & ~vb for c, m in active.items() if m & ~vb}
+            options: list[tuple[int, int]] = []  # (completions, round)
+            for r in range(1, k + 1):
+                f = active.get(r)
+                if f is not None and f & vb:
+                    continue
+                new = dict(others)
+                merged = (f or 0) | nb
+                if merged:
+                    new[r] = merged
+                else:
+                    new.pop(r, None)
+                w = after.get(tuple(sorted(new.values())), 0)
+                if w:
+                    options.append((w, r))
+            pick = _choose(options, rng)
+            colours[v] = pick
+            merged = active.get(pick, 0) | nb
+            active = others
+            if merged:
+                active[pick] = merged
+            else:
+                active.pop(pick, None)
+        return colours
+
+
+class Sampler:
+    """Uniform colourings of a whole graph: independent uniform draws per component."""
+
+    def __init__(self, g: Graph, k: int, ticker: Ticker) -> None:
+        self.g = g
+        self.comps = components(g)
+        self.pieces: list[PieceSampler] = []
+        self.possible = k > 0 and not (g.loop and g.n)
+        if not self.possible:
+            return
+        for i, comp in enumerate(self.comps):
+            with ticker.window(i / len(self.comps), (i + 1) / len(self.comps)):
+                piece = PieceSampler(g.induced(comp), k, ticker)
+            if piece.total == 0:
+                self.possible = False
+                return
+            self.pieces.append(piece)
+
+    def draw(self, rng: random.Random) -> list[int]:
+        """One uniform colouring; requires self.possible."""
+        colours = [0] * self.g.n
+        for comp, piece in zip(self.comps, self.pieces, strict=True):
+            for v, c in zip(comp, piece.draw(rng), strict=True):
+                colours[v] = c
+        return colours
+
+
+def _choose(options: list[tuple[int, int]], rng: random.Random) -> int:
+    """A round chosen with probability proportional to its weight."""
+    total = sum(w for w, _ in options)
+    x = rng.randrange(total)
+    for w, r in options:
+        if x < w:
+            return r
+        x -= w
+    raise AssertionError("weights exhausted")

@@ -1,0 +1,351 @@
+"""The thin layer between the window and the rest of LeagueGrid.
+
+Every call into the reader, the clash graph, the engine, the schedules and the exports goes
+through here, as plain functions; the window runs the slow ones in a worker thread
+(`worker.Runner`) with `progress(fraction, stage)` and a `threading.Event` to cancel.
+"""
+
+from __future__ import annotations
+
+import hashlib
+import tempfile
+import threading
+from collections.abc import Callable
+from dataclasses import replace
+from pathlib import Path
+from typing import Any
+
+import networkx as nx
+
+from leaguegrid.model import League, LoadResult, Reason, Schedule
+
+Progress = Callable[[float, str], None]
+DEMO_FOLDER = Path(__file__).resolve().parent.parent.parent / "demo_leagues"
+LONG_WORK_SECONDS = 5.0  # above this estimate the window says how long counting may take
+COUNT_BUDGET = 60.0  # seconds for one counts table, as on the command line
+
+
+def demo_leagues() -> list[Path]:
+    """The bundled demo workbooks, sorted by name."""
+    return sorted(DEMO_FOLDER.glob("*.xlsx")) if DEMO_FOLDER.is_dir() else []
+
+
+def sha256_of(path: str | Path) -> str:
+    """The SHA-256 of a file's bytes, to notice a workbook changed since a project was saved."""
+    digest = hashlib.sha256()
+    with open(path, "rb") as handle:
+        for chunk in iter(lambda: handle.read(1 << 16), b""):
+            digest.update(chunk)
+    return digest.hexdigest()
+
+
+def load(path: str | Path, mapping: dict[str, str] | None = None) -> LoadResult:
+    """Read a league workbook or CSV; `mapping` (our column -> the workbook's, and "Shared")
+    is applied to a temporary renamed copy, so the input file is only ever read."""
+    from leaguegrid.io.league_reader import load_league
+
+    if not mapping or not Path(path).is_file():
+        return load_league(path)
+    with tempfile.TemporaryDirectory(prefix="leaguegrid-") as folder:
+        copy = Path(folder) / (Path(path).stem + ".xlsx")
+        try:
+            _mapped_copy(Path(path), mapping, copy)
+        except Exception:  # an unreadable file: the reader reports it on the original
+            return load_league(path)
+        result = load_league(copy)
+    problems = [replace(p, file=str(path)) if p.file == str(copy) else p
+                for p in result.problems]
+    league = result.league
+    if league is not None:
+        league.source = str(path)
+        league.warnings = [replace(p, file=str(path)) if p.file == str(copy) else p
+                           for p in league.warnings]
+    return LoadResult(league, problems)
+
+
+def _mapped_copy(path: Path, mapping: dict[str, str], out: Path) -> None:
+    """Write `out`: the workbook's sheets with the Fixtures headers renamed by `mapping` and the
+    shared columns added to the Settings sheet's Shared value."""
+    from openpyxl import Workbook
+
+    sheets = preview_sheets(path, limit=10**7)
+    if not sheets:
+        raise ValueError("unreadable")
+    fixtures = next((n for n in sheets if n.strip().casefold() == "fixtures"), next(iter(sheets)))
+    renames = {theirs.strip().casefold(): ours for ours, theirs in mapping.items()
+               if ours != "Shared"}
+    rows = sheets[fixtures]
+    header = next((i for i, (_n, cells) in enumerate(rows)
+                   if any(c not in (None, "") for c in cells)), None)
+    if header is not None:
+        cells = list(rows[header][1])
+        taken = {ours.casefold() for ours in renames.values()}
+        for i, cell in enumerate(cells):
+            key = str(cell).strip().casefold() if cell is not None else ""
+            if key in renames:
+                cells[i] = renames[key]
+            elif key in taken:
+                cells[i] = f"{cell} (unmatched)"
+        rows[header] = (rows[header][0], cells)
+    shared = [c for c in mapping.get("Shared", "").split(";") if c.strip()]
+    if shared:
+        _add_shared(sheets, [renames.get(c.strip().casefold(), c) for c in shared])
+    book = Workbook()
+    book.remove(book.active)
+    for name, sheet_rows in sheets.items():
+        ws = book.create_sheet(name)
+        for _n, cells in sheet_rows:
+            ws.append(list(cells))
+    book.save(out)
+
+
+def _add_shared(sheets: dict[str, list[tuple[int, list]]], columns: list[str]) -> None:
+    """Put `columns` into the Settings sheet's Shared value (creating the sheet or row)."""
+    name = next((n for n in sheets if n.strip().casefold() == "settings"), None)
+    if name is None:
+        sheets["Settings"] = [(1, ["Setting", "Value"])]
+        name = "Settings"
+    rows = sheets[name]
+    for i, (n, cells) in enumerate(rows):
+        if cells and str(cells[0] or "").strip().casefold() == "shared":
+            now = [c.strip() for c in str(cells[1] or "").replace(";", ",").split(",")
+                   if c.strip()] if len(cells) > 1 else ["Home", "Away", "Venue"]
+            merged = now + [c for c in columns if c.casefold() not in
+                            {x.casefold() for x in now}]
+            rows[i] = (n, [cells[0], ", ".join(merged), *cells[2:]])
+            return
+    rows.append((rows[-1][0] + 1 if rows else 1,
+                 ["Shared", ", ".join(["Home", "Away", "Venue", *columns])]))
+
+
+def clash_graph(league: League, waived: list[Reason] | None = None) -> nx.Graph:
+    """The league's clash graph; edges that exist only for waived reasons are left out."""
+    from leaguegrid.clashgraph import build_clash_graph, without_reasons
+
+    graph = build_clash_graph(league)
+    return without_reasons(graph, waived) if waived else graph
+
+
+def estimate_seconds(graph: nx.Graph) -> float | None:
+    """The engine's guess of how long the full polynomial takes (None when it cannot say)."""
+    from leaguegrid import engine
+
+    try:
+        return float(engine.estimate_cost(graph).seconds)
+    except Exception:  # an estimate is advice only; counting goes ahead without it
+        return None
+
+
+def count(league: League, graph: nx.Graph, progress: Progress, cancel: threading.Event,
+          rounds: list[int] | None = None, budget: float | None = COUNT_BUDGET) -> Any:
+    """The counts table (analysis.CountReport) for a league and its clash graph; what the
+    budget (seconds) cuts short is left out or shown as a labelled estimate."""
+    from leaguegrid import analysis
+
+    return analysis.count_report(league, graph, rounds=rounds, budget=budget, progress=progress,
+                                 cancel=cancel)
+
+
+def polynomial_of_graph(graph: nx.Graph, progress: Progress, cancel: threading.Event) -> Any:
+    """Only the chromatic polynomial of a graph (a long, cancellable computation)."""
+    from leaguegrid import engine
+
+    return engine.chromatic_polynomial(graph, hooks=engine.Hooks(progress=progress,
+                                                                 cancel=cancel))
+
+
+def expanded_polynomial(poly: Any) -> str:
+    """The polynomial written out term by term."""
+    from leaguegrid.polytext import expanded
+
+    return expanded(poly)
+
+
+def export_calendar(path: str | Path, league: League, schedule: Schedule, graph: nx.Graph,
+                    min_rounds: int | None) -> None:
+    """The Excel calendar of a schedule, written atomically."""
+    from leaguegrid.io.calendar_xlsx import CalendarSummary, write_calendar_xlsx
+
+    summary = CalendarSummary.for_schedule(league, schedule, clashes=graph.number_of_edges(),
+                                           min_rounds=min_rounds)
+    write_calendar_xlsx(path, league, schedule, summary)
+
+
+def export_csv(path: str | Path, league: League, schedule: Schedule) -> None:
+    """The whole schedule as CSV, written atomically."""
+    from leaguegrid.io.csv_out import write_schedule_csv
+
+    write_schedule_csv(path, league, schedule)
+
+
+PREVIEW_ROWS = 5000
+
+
+def preview_sheets(path: str | Path,
+                   limit: int = PREVIEW_ROWS) -> dict[str, list[tuple[int, list]]]:
+    """Each sheet's rows as the spreadsheet numbers them, for the preview; {} when unreadable.
+
+    Only reads (openpyxl read-only, cached values); a CSV shows as its one sheet, Fixtures.
+    """
+    path = Path(path)
+    try:
+        if path.suffix.lower() == ".csv":
+            return {"Fixtures": _csv_rows(path, limit)}
+        return _xlsx_rows(path, limit)
+    except Exception:  # a damaged file has no preview; its problems are listed instead
+        return {}
+
+
+def _csv_rows(path: Path, limit: int) -> list[tuple[int, list]]:
+    import csv
+
+    text = path.read_bytes().decode("utf-8-sig", errors="replace")
+    try:
+        dialect = csv.Sniffer().sniff(text[:4096], delimiters=",;")
+    except csv.Error:
+        dialect = csv.excel
+    rows = csv.reader(text.splitlines(), dialect)
+    return [(n, row) for n, row in zip(range(1, limit + 1), rows, strict=False)]
+
+
+def _xlsx_rows(path: Path, limit: int) -> dict[str, list[tuple[int, list]]]:
+    from openpyxl import load_workbook
+
+    book = load_workbook(path, read_only=True, data_only=True)
+    try:
+        out: dict[str, list[tuple[int, list]]] = {}
+        for sheet in book.worksheets:
+            rows = []
+            for n, row in enumerate(sheet.iter_rows(values_only=True), start=1):
+                if n > limit:
+                    break
+                rows.append((n, list(row)))
+            while rows and all(v is None for v in rows[-1][1]):
+                rows.pop()
+            out[sheet.title] = rows
+        return out
+    finally:
+        book.close()
+
+
+def ics_plan(league: League, schedule: Schedule) -> tuple[list[str], str | None]:
+    """The iCalendar file names an export would write, or the reason it cannot (no dates)."""
+    from leaguegrid.io import ics
+
+    try:
+        calendars = ics.ics_calendars(league, schedule)
+    except ics.IcsError as err:
+        return [], str(err)
+    taken: set[str] = set()
+    return [ics.file_name(prefix, name, taken) for prefix, name, _rows in calendars], None
+
+
+def export_ics(folder: str | Path, league: League, schedule: Schedule) -> list[Path]:
+    """The league, team and club calendars, each written atomically."""
+    from leaguegrid.io.ics import write_ics_files
+
+    return write_ics_files(folder, league, schedule)
+
+
+def calendar_sheet_plan(league: League) -> list[str]:
+    """The sheets an Excel calendar holds, in order (team, venue and club sheets by name)."""
+    teams = sorted(set(league.teams) | {t for f in league.fixtures for t in f.teams},
+                   key=str.casefold)
+    venues = sorted({f.venue for f in league.fixtures if f.venue}, key=str.casefold)
+    clubs = sorted({t.club for t in league.teams.values() if t.club}, key=str.casefold)
+    return (["Calendar", "Summary"] + teams + [f"Venue {v}" for v in venues]
+            + [f"Club {c}" for c in clubs])
+
+
+def write_text_atomic(path: str | Path, text: str) -> None:
+    """Write a text file through a temporary file in the same folder, then move it into place."""
+    from leaguegrid.io.atomic import atomic_write
+
+    with atomic_write(path, "w", encoding="utf-8", newline="\n") as handle:
+        handle.write(text)
+
+
+def check_schedule(league: League, graph: nx.Graph, schedule: Schedule) -> list[Any]:
+    """Every clash or rule the schedule breaks (schedule.check Violations; empty: it holds)."""
+    from leaguegrid.schedule.check import check_schedule as check
+
+    return check(league, graph, schedule)
+
+
+def round_titles(league: League, k: int) -> list[str]:
+    """Row titles for rounds 1..k: the number, and the date and time when the league has them."""
+    from leaguegrid.schedule.dates import DatesError, round_dates
+
+    try:
+        infos = round_dates(league, k)
+    except DatesError:
+        infos = []
+    titles = []
+    for r in range(1, k + 1):
+        info = infos[r - 1] if r - 1 < len(infos) else None
+        extra = []
+        if info is not None and info.date is not None:
+            extra.append(info.date.isoformat())
+        if info is not None and info.time is not None:
+            extra.append(info.time.strftime("%H:%M"))
+        titles.append(f"Round {r}" + (f"\n{' '.join(extra)}" if extra else ""))
+    return titles
+
+
+def schedule_summary(schedule: Schedule) -> str:
+    """One paragraph: rounds, seed, how it was made, which rules the counts include."""
+    how = {"uniform": "drawn uniformly at random from every valid assignment",
+           "search": "found by the rule-aware generator",
+           "edited": "edited by hand"}.get(schedule.method, schedule.method)
+    parts = [f"{schedule.rounds} rounds, seed {schedule.seed}, {how}."]
+    if schedule.assignments is not None:
+        parts.append(f"It is one of {schedule.assignments:,} valid assignments.")
+    if schedule.rules_counted:
+        parts.append("Counted exactly: " + "; ".join(schedule.rules_counted) + ".")
+    if schedule.rules_generator:
+        parts.append("Enforced by the generator only: " + "; ".join(schedule.rules_generator)
+                     + ".")
+    parts += [n if n.endswith(".") else n + "." for n in schedule.notes]
+    return " ".join(parts)
+
+
+def rules_note(league: League | None) -> str:
+    """Which rules the counts include and which only the schedule generator enforces."""
+    if league is None:
+        return ""
+    from leaguegrid.schedule.rules import generator_rules
+
+    try:
+        described = generator_rules(league).describe()
+    except AttributeError:
+        described = []
+    if not described:
+        return ""
+    return ("Only the schedule generator enforces: " + "; ".join(described) +
+            " (the counts do not include these).")
+
+
+SCORE_TERMS = ("balance", "alternation", "spread", "slots", "rest", "travel")
+
+
+def draw(league: League, graph: nx.Graph, k: int, seed: int, draws: int, progress: Progress,
+         cancel: threading.Event, terms: dict[str, float] | None = None,
+         budget: float | None = None) -> tuple[Schedule | None, str]:
+    """A schedule for K rounds from a seed (best of `draws` by score `terms` when more than
+    one), and a sentence saying what happened; (None, why) when none exists or work stopped."""
+    from leaguegrid.schedule.draw import plan
+
+    if draws > 1 and not terms:
+        terms = dict.fromkeys(SCORE_TERMS, 1.0)
+    result = plan(league, graph, k, seed, draws=draws, terms=terms if draws > 1 else None,
+                  budget=budget, progress=progress, cancel=cancel)
+    if result.status == "found" and result.schedule is not None:
+        schedule = result.schedule
+        if result.score is not None:
+            schedule.notes = [*schedule.notes, *("score " + line for line in result.score.lines())]
+        return schedule, schedule_summary(schedule)
+    if result.status == "impossible":
+        return None, f"No schedule with {k} rounds: " + "; ".join(result.reasons)
+    if result.status == "budget":
+        return None, f"No schedule found for {k} rounds within the time allowed."
+    return None, "Drawing was cancelled."

@@ -1,0 +1,124 @@
+"""Undoable edits: pins, ties, moves in the schedule, waived and added clashes."""
+
+from __future__ import annotations
+
+from PySide6.QtGui import QUndoCommand
+
+from leaguegrid.gui.document import LeagueDocument
+from leaguegrid.model import Reason
+
+_MISSING = object()
+
+
+class PinCommand(QUndoCommand):
+    """Pin a fixture to a round (or unpin it with `round_=None`)."""
+
+    def __init__(self, doc: LeagueDocument, label: str, round_: int | None) -> None:
+        text = f"Pin {label} to round {round_}" if round_ is not None else f"Unpin {label}"
+        super().__init__(text)
+        self.doc, self.label, self.round = doc, label, round_
+        self.before = doc.edits.pins.get(label, _MISSING)
+
+    def redo(self) -> None:
+        self.doc.edits.pins[self.label] = self.round
+        self.doc.changed_edits()
+
+    def undo(self) -> None:
+        if self.before is _MISSING:
+            self.doc.edits.pins.pop(self.label, None)
+        else:
+            self.doc.edits.pins[self.label] = self.before
+        self.doc.changed_edits()
+
+
+class TieCommand(QUndoCommand):
+    """Tie two fixtures: they must share a round."""
+
+    def __init__(self, doc: LeagueDocument, first: str, second: str) -> None:
+        super().__init__(f"Tie {first} with {second}")
+        self.doc, self.pair = doc, (first, second)
+
+    def redo(self) -> None:
+        self.doc.edits.ties.append(self.pair)
+        self.doc.changed_edits()
+
+    def undo(self) -> None:
+        self.doc.edits.ties.remove(self.pair)
+        self.doc.changed_edits()
+
+
+class UntieCommand(QUndoCommand):
+    """Remove a tie made in the window."""
+
+    def __init__(self, doc: LeagueDocument, pair: tuple[str, str]) -> None:
+        super().__init__(f"Untie {pair[0]} and {pair[1]}")
+        self.doc, self.pair = doc, pair
+        self.index = doc.edits.ties.index(pair)
+
+    def redo(self) -> None:
+        self.doc.edits.ties.remove(self.pair)
+        self.doc.changed_edits()
+
+    def undo(self) -> None:
+        self.doc.edits.ties.insert(self.index, self.pair)
+        self.doc.changed_edits()
+
+
+class MoveCommand(QUndoCommand):
+    """Move a fixture to another round of the chosen schedule."""
+
+    def __init__(self, doc: LeagueDocument, label: str, to_round: int) -> None:
+        assert doc.schedule is not None
+        self.from_round = doc.schedule.assignment[label]
+        super().__init__(f"Move {label} from round {self.from_round} to round {to_round}")
+        self.doc, self.label, self.to_round = doc, label, to_round
+
+    def _set(self, round_: int) -> None:
+        schedule = self.doc.schedule
+        if schedule is not None:
+            schedule.assignment[self.label] = round_
+            self.doc.scheduleChanged.emit()
+
+    def redo(self) -> None:
+        self._set(self.to_round)
+
+    def undo(self) -> None:
+        self._set(self.from_round)
+
+
+class WaiveCommand(QUndoCommand):
+    """Waive a clash reason (or take the waiver back with `waive=False`)."""
+
+    def __init__(self, doc: LeagueDocument, reason: Reason, waive: bool = True) -> None:
+        super().__init__(f"{'Waive' if waive else 'Restore'} clash: {reason}")
+        self.doc, self.reason, self.waive = doc, reason, waive
+
+    def _apply(self, waive: bool) -> None:
+        waived = self.doc.edits.waived
+        if waive and self.reason not in waived:
+            waived.append(self.reason)
+        elif not waive and self.reason in waived:
+            waived.remove(self.reason)
+        self.doc.changed_edits()
+
+    def redo(self) -> None:
+        self._apply(self.waive)
+
+    def undo(self) -> None:
+        self._apply(not self.waive)
+
+
+class AddClashCommand(QUndoCommand):
+    """Add a clash between two fixtures (a split: they must not share a round)."""
+
+    def __init__(self, doc: LeagueDocument, first: str, second: str) -> None:
+        super().__init__(f"Add a clash: {first} and {second}")
+        self.doc, self.pair = doc, (first, second)
+
+    def redo(self) -> None:
+        self.doc.edits.added.append(self.pair)
+        self.doc.changed_edits()
+
+    def undo(self) -> None:
+        self.doc.edits.added.remove(self.pair)
+        self.doc.changed_edits()

@@ -1,0 +1,146 @@
+"""What-if on clashes: the clash reasons ranked by what waiving each would gain, with
+"waive this clash" and "add a clash" acting on a copy of the league (undoable)."""
+
+from __future__ import annotations
+
+from typing import Any
+
+from PySide6.QtCore import Qt, Signal
+from PySide6.QtWidgets import (
+    QAbstractItemView,
+    QHBoxLayout,
+    QHeaderView,
+    QInputDialog,
+    QLabel,
+    QPushButton,
+    QTableWidget,
+    QTableWidgetItem,
+    QVBoxLayout,
+    QWidget,
+)
+
+from leaguegrid.gui import numbers
+from leaguegrid.gui.document import LeagueDocument
+
+COLUMNS = ("Clash reason", "Kind", "Clashes it makes", "Assignments if waived", "Gain",
+           "Fewest rounds if waived", "Waived now")
+
+
+class WhatIfView(QWidget):
+    """The ranked table; the buttons ask the window to waive or add (through the undo stack)."""
+
+    waiveRequested = Signal(object, bool)  # Reason, waive (False = restore)
+    addRequested = Signal(str, str)
+
+    def __init__(self, doc: LeagueDocument, parent: QWidget | None = None) -> None:
+        super().__init__(parent)
+        self.doc = doc
+        self.rows: list[Any] = []
+        self.summary = QLabel("Rank the clash reasons (Ctrl+I) to see which ones cost the most "
+                              "schedules. Waiving or adding a clash acts on a copy of the league: "
+                              "the workbook is never changed, and Undo takes it back.")
+        self.summary.setWordWrap(True)
+        self.table = QTableWidget(0, len(COLUMNS))
+        self.table.setObjectName("whatifTable")
+        self.table.setHorizontalHeaderLabels(COLUMNS)
+        self.table.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
+        self.table.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
+        self.table.setSelectionMode(QAbstractItemView.SelectionMode.SingleSelection)
+        self.table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
+        self.table.horizontalHeader().setSectionResizeMode(0, QHeaderView.ResizeMode.Stretch)
+        self.table.itemSelectionChanged.connect(self._selection)
+        self.waive_button = QPushButton("Waive this clash")
+        self.waive_button.setEnabled(False)
+        self.waive_button.clicked.connect(self._toggle)
+        self.add_button = QPushButton("Add a clash…")
+        self.add_button.clicked.connect(self._add)
+        self.state = QLabel("")
+        self.state.setWordWrap(True)
+        buttons = QHBoxLayout()
+        buttons.addWidget(self.waive_button)
+        buttons.addWidget(self.add_button)
+        buttons.addStretch(1)
+        layout = QVBoxLayout(self)
+        layout.addWidget(self.summary)
+        layout.addWidget(self.table, 1)
+        layout.addLayout(buttons)
+        layout.addWidget(self.state)
+        doc.edited.connect(self._show_state)
+        doc.loaded.connect(self.clear)
+
+    def clear(self) -> None:
+        self.rows = []
+        self.table.setRowCount(0)
+        self._show_state()
+
+    def show_result(self, k: int, result: Any) -> None:
+        """Fill the table from the schedules' what-if result for K rounds."""
+        self.rows = list(result.reasons)
+        base = numbers.cell_text(result.assignments)
+        self.summary.setText(
+            f"For {k} rounds: {base} assignments now, fewest rounds {result.min_rounds}. "
+            "Each row: the assignments if that reason were waived (every clash that exists only "
+            "because of it removed) and the gain. Ranked by gain.")
+        self.table.setRowCount(len(self.rows))
+        for r, row in enumerate(self.rows):
+            values = (str(row.reason), row.kind, str(len(row.edges)),
+                      row.assignments_if_waived, row.gain, row.min_rounds_if_waived,
+                      "yes" if row.reason in self.doc.edits.waived else "")
+            for c, value in enumerate(values):
+                text = numbers.cell_text(value) if c in (3, 4) else (
+                    "" if value is None else str(value))
+                item = QTableWidgetItem(text)
+                if c in (3, 4):
+                    item.setToolTip(numbers.full_text(value))
+                    item.setTextAlignment(Qt.AlignmentFlag.AlignRight
+                                          | Qt.AlignmentFlag.AlignVCenter)
+                if c == 0:
+                    item.setToolTip("\n".join(f"{a} – {b}" for a, b in row.edges[:30]))
+                self.table.setItem(r, c, item)
+        self._show_state()
+
+    def current_reason(self) -> Any:
+        rows = self.table.selectionModel().selectedRows()
+        return self.rows[rows[0].row()].reason if rows else None
+
+    def _selection(self) -> None:
+        reason = self.current_reason()
+        self.waive_button.setEnabled(reason is not None)
+        self.waive_button.setText("Restore this clash" if reason in self.doc.edits.waived
+                                  else "Waive this clash")
+
+    def _toggle(self) -> None:
+        reason = self.current_reason()
+        if reason is not None:
+            self.waiveRequested.emit(reason, reason not in self.doc.edits.waived)
+
+    def _add(self) -> None:
+        league = self.doc.league
+        if league is None:
+            return
+        labels = [f.label for f in league.fixtures]
+        first, ok = QInputDialog.getItem(self, "Add a clash", "First fixture:", labels, 0, False)
+        if not ok:
+            return
+        others = [x for x in labels if x != first]
+        second, ok = QInputDialog.getItem(self, "Add a clash",
+                                          f"Fixture that may not share a round with {first}:",
+                                          others, 0, False)
+        if ok:
+            self.addRequested.emit(first, second)
+
+    def _show_state(self) -> None:
+        edits = self.doc.edits
+        parts = []
+        if edits.waived:
+            parts.append("Waived: " + "; ".join(str(r) for r in edits.waived) + ".")
+        if edits.added:
+            parts.append("Added clashes: " + "; ".join(f"{a} – {b}" for a, b in edits.added)
+                         + ".")
+        self.state.setText(" ".join(parts) + (" The counts include these changes; the "
+                                              "workbook is unchanged." if parts else ""))
+        for r, row in enumerate(self.rows):
+            item = self.table.item(r, len(COLUMNS) - 1)
+            if item is not None:
+                item.setText("yes" if row.reason in edits.waived else "")
+        self._selection()

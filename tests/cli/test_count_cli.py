@@ -1,0 +1,127 @@
+"""`leaguegrid check` and `leaguegrid count` end to end on real workbooks."""
+
+from __future__ import annotations
+
+import json
+import math
+
+import pytest
+
+from leaguegrid.cli import main
+
+
+def run(capsys, *argv: str) -> tuple[int, str, str]:
+    code = main(list(argv))
+    out, err = capsys.readouterr()
+    return code, out, err
+
+
+def test_count_six_team_round_robin_matches_one_factorizations(capsys, round_robin) -> None:
+    # OEIS A000438: K6 has 6 one-factorizations, so a 6-team single round-robin can be split
+    # into 5 rounds in 6 ways (groupings), and P(5) = 6 x 5!.
+    code, out, _ = run(capsys, "count", str(round_robin(6)), "--rounds", "5", "--json")
+    assert code == 0
+    data = json.loads(out)
+    assert data["fixtures"] == 15
+    assert data["clashes"] == 15 * 8 // 2  # each fixture shares a team with 8 others
+    assert data["min_rounds"] == 5
+    assert data["counts"] == [{"rounds": 5, "exact": True, "assignments": 6 * 120,
+                               "all_rounds_used": 6 * 120, "groupings": 6}]
+
+
+def test_count_default_range_and_polynomial_of_a_path(capsys, workbook) -> None:
+    # Three fixtures in a chain of clashes form a path: P(k) = k (k - 1)^2 (trees, textbook).
+    book = workbook("path.xlsx", {"Fixtures": [
+        ("Fixture", "Home", "Away"),
+        ("A v B", "A", "B"),
+        ("B v C", "B", "C"),
+        ("C v D", "C", "D"),
+    ]})
+    code, out, _ = run(capsys, "count", str(book), "--json")
+    assert code == 0
+    data = json.loads(out)
+    assert data["min_rounds"] == 2
+    assert data["polynomial"] == [0, 1, -2, 1]
+    assert [row["rounds"] for row in data["counts"]] == [2, 3, 4, 5, 6]
+    for row in data["counts"]:
+        k = row["rounds"]
+        assert row["assignments"] == k * (k - 1) ** 2
+    # groupings: 2 rounds -> 1 way ({AB, CD} | {BC}); 3 rounds -> 1 way (each alone)
+    assert [row["groupings"] for row in data["counts"]] == [1, 1, 0, 0, 0]
+    code, out, _ = run(capsys, "count", str(book))
+    assert "Chromatic polynomial: k (k - 1)^2" in out
+    assert "Fewest rounds: 2" in out
+
+
+def test_count_with_pin_divides_by_symmetry(capsys, workbook) -> None:
+    # A triangle of clashes with one fixture pinned to round 3: of the k(k-1)(k-2) assignments,
+    # exactly 1/k put that fixture in round 3 (symmetry of rounds), so (k-1)(k-2) remain.
+    book = workbook("pin.xlsx", {"Fixtures": [
+        ("Fixture", "Home", "Away", "Round"),
+        ("A v B", "A", "B", 3),
+        ("A v C", "A", "C", None),
+        ("B v C", "B", "C", None),
+    ]})
+    code, out, _ = run(capsys, "count", str(book), "--rounds", "2..5", "--json")
+    assert code == 0
+    data = json.loads(out)
+    assert data["pinned"] is True
+    assert data["min_rounds"] == 3
+    assert [r["assignments"] for r in data["counts"]] == [0, 2, 6, 12]
+    # every round used with k = 3: the two free fixtures take rounds 1 and 2 in either order
+    assert data["counts"][1]["all_rounds_used"] == 2
+    assert data["polynomial"] == [0, 2, -3, 1]  # the graph's own polynomial, pins aside
+
+
+def test_count_rejects_more_rounds_than_the_rounds_sheet(capsys, workbook) -> None:
+    book = workbook("r.xlsx", {
+        "Fixtures": [("Home", "Away"), ("A", "B")],
+        "Rounds": [("Round", "Date"), (1, None), (2, None)],
+    })
+    code, _, err = run(capsys, "count", str(book), "--rounds", "1..3")
+    assert code == 2
+    assert "the Rounds sheet lists 2 rounds; --rounds 3 asks for more" in err
+
+
+def test_count_usage_error_on_bad_range(capsys, round_robin) -> None:
+    with pytest.raises(SystemExit) as stop:
+        main(["count", str(round_robin(4)), "--rounds", "5..3"])
+    assert stop.value.code == 2
+
+
+def test_count_budget_exhausted_exits_5_and_marks_rows(capsys, demo) -> None:
+    # bigseason's full polynomial is far beyond a 0.5 s budget
+    code, out, _ = run(capsys, "count", str(demo / "bigseason.xlsx"), "--budget", "0.5",
+                       "--json")
+    assert code == 5
+    data = json.loads(out)
+    assert data["polynomial"] is None
+    assert data["complete"] is False
+    assert any(row["exact"] is False for row in data["counts"]) or data["min_rounds"] is None
+
+
+def test_check_reports_input_problems_with_exit_1(capsys, workbook) -> None:
+    book = workbook("bad.xlsx", {"Fixtures": [
+        ("Home", "Away"),
+        ("Heron", "Heron"),
+    ]})
+    code, out, _ = run(capsys, "check", str(book))
+    assert code == 1
+    assert "row 2" in out and "column Away" in out and "'Heron'" in out
+    assert "Usable: no" in out
+
+
+@pytest.mark.parametrize("name", ["small", "clubday", "season", "bigseason", "schedules"])
+def test_check_demo_leagues_have_no_problems(capsys, demo, name: str) -> None:
+    code, out, _ = run(capsys, "check", str(demo / f"{name}.xlsx"))
+    assert code == 0, out
+    assert "Problems: none" in out
+
+
+def test_counts_rows_agree_with_groupings_identity(capsys, demo) -> None:
+    # Without pins, every-round-used = groupings(K) x K! (falling-factorial basis, textbook).
+    code, out, _ = run(capsys, "count", str(demo / "season.xlsx"), "--json")
+    assert code == 0
+    for row in json.loads(out)["counts"]:
+        k = row["rounds"]
+        assert row["all_rounds_used"] == row["groupings"] * math.factorial(k)

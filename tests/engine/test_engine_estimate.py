@@ -1,0 +1,50 @@
+"""Labelled estimates and the cost estimate."""
+
+from __future__ import annotations
+
+import networkx as nx
+
+from leaguegrid.engine import Cost, count_assignments, estimate_assignments, estimate_cost
+from leaguegrid.engine.frontier import _step_masks, successors
+from leaguegrid.engine.graph import from_networkx
+from leaguegrid.engine.orders import greedy_order
+
+
+def test_estimate_is_labelled_and_brackets_exact_count() -> None:
+    G = nx.petersen_graph()
+    for k in (3, 4, 5):
+        exact = count_assignments(G, k)
+        est = estimate_assignments(G, k)
+        assert est.method.startswith("sequential importance sampling, 2000 draws")
+        assert est.low <= exact <= est.high
+        assert abs(est.value - exact) <= exact // 5
+
+
+def test_estimate_with_pins_and_impossible_cases() -> None:
+    G = nx.cycle_graph(6)
+    exact = count_assignments(G, 3, pins={0: 1}, exclusions={3: {2}})
+    est = estimate_assignments(G, 3, pins={0: 1}, exclusions={3: {2}})
+    assert est.low <= exact <= est.high
+    none = estimate_assignments(G, 2, pins={0: 3})
+    assert (none.value, none.low, none.high) == (0, 0, 0)
+    assert none.method == "exact: no assignment is possible"
+
+
+def test_estimate_with_no_valid_draw_reports_proven_ceiling() -> None:
+    est = estimate_assignments(nx.complete_graph(4), 3)
+    assert (est.value, est.low, est.high) == (0, 0, 3**4)
+
+
+def test_cost_of_small_graph_is_its_largest_table() -> None:
+    G = nx.line_graph(nx.complete_graph(6))
+    g, _ = from_networkx(G)
+    order = greedy_order(g)
+    layer, largest = {()}, 1
+    for vb, nb in _step_masks(g, order):
+        layer = {ns for s in layer for ns, _ in successors(s, vb, nb, g.n + 1)}
+        largest = max(largest, len(layer))
+    cost = estimate_cost(G)
+    assert isinstance(cost, Cost)
+    assert cost.states == largest
+    assert cost.seconds > 0
+    assert estimate_cost(G, 5).states <= cost.states

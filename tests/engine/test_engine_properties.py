@@ -1,0 +1,100 @@
+"""Hypothesis property tests: identities every correct engine satisfies, and agreement of
+the engine's internal paths with each other and with networkx."""
+
+from __future__ import annotations
+
+import math
+import random
+
+import networkx as nx
+import pytest
+from hypothesis import HealthCheck, given, settings
+from hypothesis import strategies as st
+
+from leaguegrid.engine import (
+    chromatic_polynomial,
+    count_all_rounds_used,
+    count_assignments,
+    groupings,
+)
+from leaguegrid.engine.falling import from_falling
+from leaguegrid.engine.frontier import count_at, count_polynomial
+from leaguegrid.engine.graph import from_networkx
+from leaguegrid.engine.hooks import Ticker
+
+sympy = pytest.importorskip("sympy")
+
+SETTINGS = settings(max_examples=40, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+
+
+@st.composite
+def graphs(draw, max_n: int = 9) -> nx.Graph:
+    n = draw(st.integers(0, max_n))
+    pairs = [(i, j) for i in range(n) for j in range(i + 1, n)]
+    chosen = draw(st.lists(st.sampled_from(pairs), unique=True)) if pairs else []
+    G = nx.Graph()
+    G.add_nodes_from(range(n))
+    G.add_edges_from(chosen)
+    return G
+
+
+@SETTINGS
+@given(graphs(), st.data())
+def test_deletion_contraction(G: nx.Graph, data) -> None:
+    # P(G) = P(G - e) - P(G / e) for any edge e.
+    if G.number_of_edges() == 0:
+        return
+    u, v = data.draw(st.sampled_from(sorted(G.edges)))
+    deleted = G.copy()
+    deleted.remove_edge(u, v)
+    contracted = nx.contracted_nodes(G, u, v, self_loops=False)
+    assert chromatic_polynomial(G) == chromatic_polynomial(deleted) - chromatic_polynomial(
+        contracted
+    )
+
+
+@SETTINGS
+@given(graphs())
+def test_falling_factorial_coefficients_rebuild_polynomial(G: nx.Graph) -> None:
+    a = groupings(G)
+    assert from_falling(a) == chromatic_polynomial(G)
+    assert all(c >= 0 for c in a)
+
+
+@SETTINGS
+@given(graphs())
+def test_fixed_k_equals_polynomial_value(G: nx.Graph) -> None:
+    p = chromatic_polynomial(G)
+    a = groupings(G)
+    for k in range(0, G.number_of_nodes() + 2):
+        assert count_assignments(G, k) == p(k)
+        expect = a[k] * math.factorial(k) if k < len(a) else 0
+        assert count_all_rounds_used(G, k) == expect
+
+
+@SETTINGS
+@given(graphs(), st.randoms(use_true_random=False))
+def test_every_vertex_order_agrees(G: nx.Graph, rnd: random.Random) -> None:
+    # The frontier programme's result does not depend on the vertex order.
+    g, _ = from_networkx(G)
+    order = list(range(g.n))
+    rnd.shuffle(order)
+    ticker = Ticker()
+    p = count_polynomial(g, order, ticker)
+    assert p == chromatic_polynomial(G)
+    for k in range(0, 5):
+        assert count_at(g, order, k, ticker) == p(k)
+
+
+@settings(max_examples=15, deadline=None)
+@given(graphs(max_n=7))
+def test_agrees_with_networkx(G: nx.Graph) -> None:
+    # Reference: networkx.chromatic_polynomial (sympy), at most 7 vertices here.
+    x = sympy.Symbol("x")
+    ref = sympy.Poly(nx.chromatic_polynomial(G), x) if G.number_of_nodes() else None
+    p = chromatic_polynomial(G)
+    if ref is None:
+        assert p(3) == 1
+        return
+    for k in range(0, 6):
+        assert p(k) == int(ref.eval(k))
