@@ -134,7 +134,7 @@ def cmd_count(args: argparse.Namespace) -> int:
 def cmd_plan(args: argparse.Namespace) -> int:
     from leaguegrid.planning import run_plan
 
-    return run_plan(args)
+    return run_plan(args, load)
 
 
 def cmd_whatif(args: argparse.Namespace) -> int:

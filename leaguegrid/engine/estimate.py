@@ -82,18 +82,22 @@ def sis_estimate(
         weights.append(w)
     m = len(weights)
     total = sum(weights)
-    mean = total // m
-    var = (sum(w * w for w in weights) - total * total // m) // max(m - 1, 1)
-    se = math.isqrt(max(var, 0) // m)
-    spread = (196 * se) // 100
+    squares = sum(w * w for w in weights)
+    scale = 10**6
+    # (1.96 standard errors)^2 = 1.96^2 (m S2 - T^2) / (m^2 (m - 1)), in units of 1/scale.
+    num = (m * squares - total * total) * 196 * 196 * scale * scale
+    den = m * m * max(m - 1, 1) * 100 * 100
+    spread = math.isqrt(num // den) + 1
+    mean = total * scale // m
     ceiling = 1
     for d in domains:
         ceiling *= d.bit_count()
-    low = max(mean - spread, 1 if found else 0)
-    high = min(mean + spread, ceiling) if found else ceiling
+    value = (2 * total + m) // (2 * m)
+    low = max(-(-(mean - spread) // scale), 1 if found else 0)
+    high = min((mean + spread) // scale + 1, ceiling) if found else ceiling
     ticker.report(1.0, "estimating")
     return Estimate(
-        value=mean,
+        value=value,
         low=low,
         high=high,
         method=f"sequential importance sampling, {m} draws, approximate 95% interval",

@@ -136,14 +136,33 @@ def estimate_seconds(graph: nx.Graph) -> float | None:
         return None
 
 
+def counting_graph(league: League, graph: nx.Graph) -> tuple[nx.Graph, dict[str, int], list[str]]:
+    """What the counts are taken on: the clash graph with splits added and tied fixtures merged,
+    the pins per node, and sentences for what stops any count (contradictions) or is left out."""
+    from leaguegrid.schedule.constraints import build_model
+
+    rounds = max([len(league.fixtures), 1] + [f.pin for f in league.fixtures if f.pin])
+    model = build_model(league, graph, rounds)
+    notes = list(model.contradictions)
+    if model.exclusions:
+        notes.append("Blocked rounds and Return half are not in these counts (each schedule "
+                     "drawn respects them).")
+    return model.graph, dict(model.pins), notes
+
+
 def count(league: League, graph: nx.Graph, progress: Progress, cancel: threading.Event,
           rounds: list[int] | None = None, budget: float | None = COUNT_BUDGET) -> Any:
-    """The counts table (analysis.CountReport) for a league and its clash graph; what the
-    budget (seconds) cuts short is left out or shown as a labelled estimate."""
+    """The counts table (analysis.CountReport) of a league's counting graph (ties merged,
+    pins respected); what the budget (seconds) cuts short is missing or a labelled estimate.
+    The report gets `notes`: contradictions and what the counts leave out."""
     from leaguegrid import analysis
 
-    return analysis.count_report(league, graph, rounds=rounds, budget=budget, progress=progress,
-                                 cancel=cancel)
+    counted, pins, notes = counting_graph(league, graph)
+    limit = len(league.rounds) if league.rounds_fixed else None
+    report = analysis.count_report(counted, pins=pins, rounds=rounds, round_limit=limit,
+                                   budget=budget, progress=progress, cancel=cancel)
+    report.notes = notes
+    return report
 
 
 def polynomial_of_graph(graph: nx.Graph, progress: Progress, cancel: threading.Event) -> Any:
@@ -298,8 +317,6 @@ def schedule_summary(schedule: Schedule) -> str:
            "search": "found by the rule-aware generator",
            "edited": "edited by hand"}.get(schedule.method, schedule.method)
     parts = [f"{schedule.rounds} rounds, seed {schedule.seed}, {how}."]
-    if schedule.assignments is not None:
-        parts.append(f"It is one of {schedule.assignments:,} valid assignments.")
     if schedule.rules_counted:
         parts.append("Counted exactly: " + "; ".join(schedule.rules_counted) + ".")
     if schedule.rules_generator:

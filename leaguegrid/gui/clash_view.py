@@ -36,7 +36,7 @@ def division_layout(graph: nx.Graph, division_of: dict[str, str]) -> dict[Any, Q
         groups.setdefault(division_of.get(node) or NO_DIVISION, []).append(node)
     names = sorted(groups, key=lambda d: (d == NO_DIVISION, d.casefold()))
     columns = max(1, math.ceil(math.sqrt(len(names))))
-    radius = {d: SPACING * max(1.0, math.sqrt(len(groups[d]))) for d in names}
+    radius = {d: SPACING * max(1.0, 1.4 * math.sqrt(len(groups[d]))) for d in names}
     cell = 2.6 * max(radius.values(), default=SPACING)
     out: dict[Any, QPointF] = {}
     for i, name in enumerate(names):
@@ -48,7 +48,7 @@ def division_layout(graph: nx.Graph, division_of: dict[str, str]) -> dict[Any, Q
         elif sub.number_of_edges() == 0 or len(members) <= 3:
             local = nx.circular_layout(members)
         else:
-            local = nx.spring_layout(sub, seed=7, iterations=60)
+            local = nx.spring_layout(sub, seed=7, iterations=80, k=2.0 / math.sqrt(len(members)))
         for node, (x, y) in local.items():
             out[node] = QPointF(cx + float(x) * radius[name], cy + float(y) * radius[name])
     return out
@@ -222,6 +222,10 @@ class ClashGraphView(QWidget):
         chosen = [i for i in self.scene.selectedItems() if isinstance(i, NodeItem)]
         if chosen:
             self.doc.select(chosen[0].label)
+
+    def showEvent(self, event) -> None:  # noqa: N802
+        super().showEvent(event)
+        self.fit()
 
     def zoom_in(self) -> None:
         self.view.scale(1.25, 1.25)

@@ -106,7 +106,6 @@ class CountsView(QWidget):
                 value = getattr(row, name)
                 text = str(value) if name == "rounds" else numbers.cell_text(value)
                 item = QTableWidgetItem(text)
-                item.setData(Qt.ItemDataRole.UserRole, value)
                 item.setToolTip(numbers.full_text(value) if name != "rounds" else
                                 f"{value} rounds")
                 align = Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter
@@ -124,12 +123,10 @@ class CountsView(QWidget):
                            report.min_rounds)
 
     def values(self) -> list[dict[str, Any]]:
-        """The raw values behind the table (exact ints, estimates or None), row by row."""
-        out = []
-        for r in range(self.table.rowCount()):
-            out.append({name: self.table.item(r, c).data(Qt.ItemDataRole.UserRole)
-                        for c, name in enumerate(FIELDS)})
-        return out
+        """The values behind the table (exact ints, estimates or None), row by row."""
+        if self.report is None:
+            return []
+        return [{name: getattr(row, name) for name in FIELDS} for row in self.report.rows]
 
     def copy_polynomial(self) -> None:
         if self.report is not None and self.report.polynomial_text:
@@ -151,13 +148,12 @@ class CountsView(QWidget):
         elif not report.complete:
             parts.append("Not everything finished in time: what is missing shows as "
                          f"“{numbers.NOT_COMPUTED}” or as a labelled estimate.")
+        parts += list(getattr(report, "notes", []))
         if rules_note:
             parts.append(rules_note)
         return " ".join(parts)
 
     def _row_picked(self) -> None:
         rows = self.table.selectionModel().selectedRows()
-        if rows:
-            value = self.table.item(rows[0].row(), 0).data(Qt.ItemDataRole.UserRole)
-            if isinstance(value, int):
-                self.roundsChosen.emit(value)
+        if rows and self.report is not None and rows[0].row() < len(self.report.rows):
+            self.roundsChosen.emit(self.report.rows[rows[0].row()].rounds)

@@ -583,7 +583,8 @@ class MainWindow(QMainWindow):
         self.clash_view.colour_by(schedule)
         if schedule is not None:
             self.tabs.setCurrentWidget(self.schedule_view)
-            self.stage_label.setText(message or f"Schedule drawn (seed {schedule.seed}).")
+            self.stage_label.setText(f"Schedule drawn for {schedule.rounds} rounds "
+                                     f"(seed {schedule.seed}).")
         else:
             self.stage_label.setText(message)
         self.scheduleReady.emit(schedule)

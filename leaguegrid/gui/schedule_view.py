@@ -9,8 +9,6 @@ from PySide6.QtCore import QMimeData, QPoint, Qt, Signal
 from PySide6.QtGui import QColor, QDrag, QPalette
 from PySide6.QtWidgets import (
     QAbstractItemView,
-    QFrame,
-    QHeaderView,
     QInputDialog,
     QLabel,
     QMenu,
@@ -33,10 +31,6 @@ class Chip(QLabel):
         super().__init__(label)
         self.view, self.label, self.round = view, label, round_
         self.setObjectName("fixtureChip")
-        self.setAutoFillBackground(True)
-        self.setFrameShape(QFrame.Shape.Box)
-        self.setMargin(3)
-        self.setWordWrap(True)
         self.setCursor(Qt.CursorShape.OpenHandCursor)
         self._press: QPoint | None = None
 
@@ -107,7 +101,6 @@ class ScheduleView(QWidget):
         self.grid.setObjectName("scheduleGrid")
         self.grid.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
         self.grid.setSelectionMode(QAbstractItemView.SelectionMode.NoSelection)
-        self.grid.verticalHeader().setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
         self.chips: dict[str, Chip] = {}
         self.violations: list[Any] = []
         layout = QVBoxLayout(self)
@@ -158,12 +151,24 @@ class ScheduleView(QWidget):
             for c in range(len(venues)):
                 cells[r][c].box.addStretch(1)
                 self.grid.setCellWidget(r, c, cells[r][c])
-        self.grid.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.Stretch)
+        self.grid.horizontalHeader().setStretchLastSection(True)
         self.violations = bridge.check_schedule(league, self.doc.graph, schedule) \
             if self.doc.graph is not None else []
         self.info.setText(message or bridge.schedule_summary(schedule))
         self.status.setText(self.validity_text())
         self._paint_chips()
+        self._fit_cells(cells)
+
+    def _fit_cells(self, cells: list[list[Cell]]) -> None:
+        """Rows and columns as large as the chips they hold (cell widgets are not measured by
+        the table itself)."""
+        for c in range(self.grid.columnCount()):
+            width = max((cells[r][c].sizeHint().width() for r in range(len(cells))), default=0)
+            header = self.grid.horizontalHeader().sectionSizeHint(c)
+            self.grid.setColumnWidth(c, max(width, header) + 6)
+        for r, row in enumerate(cells):
+            self.grid.setRowHeight(r, max((cell.sizeHint().height() for cell in row),
+                                          default=24) + 4)
 
     def validity_text(self) -> str:
         """One line: the schedule holds, or the first few things it breaks."""
@@ -181,30 +186,23 @@ class ScheduleView(QWidget):
         for v in self.violations:
             for label in getattr(v, "fixtures", ()):
                 broken.setdefault(label, []).append(str(v))
+        text_colour = pal.color(QPalette.ColorRole.Text).name()
+        highlight = pal.color(QPalette.ColorRole.Highlight).name()
         for label, chip in self.chips.items():
-            chip_pal = chip.palette()
-            chip_pal.setColor(QPalette.ColorRole.Window, palette.round_colour(chip.round, pal))
-            chip_pal.setColor(QPalette.ColorRole.WindowText, pal.color(QPalette.ColorRole.Text))
-            chip.setPalette(chip_pal)
+            fill = palette.round_colour(chip.round, pal).name()
             pin = self.doc.pin_of(label)
             text = label + (f"  [pinned {pin}]" if pin is not None else "")
-            if label in broken:
-                text = "⚠ " + text
-            chip.setText(text)
+            chip.setText(("⚠ " + text) if label in broken else text)
             if label == selected:
-                chip.setLineWidth(3)
-                chip.setStyleSheet(f"QLabel {{ border: 3px solid "
-                                   f"{pal.color(QPalette.ColorRole.Highlight).name()}; }}")
+                border = f"3px solid {highlight}"
             elif label in broken:
-                chip.setLineWidth(2)
-                chip.setStyleSheet(f"QLabel {{ border: 2px solid "
-                                   f"{palette.conflict_colour(pal).name()}; }}")
+                border = f"2px solid {palette.conflict_colour(pal).name()}"
             elif label in near:
-                chip.setStyleSheet(f"QLabel {{ border: 2px dashed "
-                                   f"{pal.color(QPalette.ColorRole.Highlight).name()}; }}")
+                border = f"2px dashed {highlight}"
             else:
-                chip.setLineWidth(1)
-                chip.setStyleSheet("")
+                border = f"1px solid {pal.color(QPalette.ColorRole.Mid).name()}"
+            chip.setStyleSheet(f"QLabel {{ background-color: {fill}; color: {text_colour}; "
+                               f"border: {border}; border-radius: 3px; padding: 2px; }}")
             tip = [label, f"round {chip.round}"]
             tip += broken.get(label, [])
             if label in near:
@@ -238,5 +236,5 @@ class ScheduleView(QWidget):
                 self.moveRequested.emit(label, k)
 
     def chip_colour(self, label: str) -> QColor:
-        """The fill of a fixture's chip (for tests: the round's colour)."""
-        return self.chips[label].palette().color(QPalette.ColorRole.Window)
+        """The fill of a fixture's chip: its round's colour."""
+        return palette.round_colour(self.chips[label].round, self.palette())

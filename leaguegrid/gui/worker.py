@@ -169,9 +169,14 @@ class Runner(QObject):
 
     def _on_done(self, result: object) -> None:
         job = self._finish()
-        if job.on_done is not None:
-            job.on_done(result)
-        self.finished.emit(job.name, result)
+        try:
+            if job.on_done is not None:
+                job.on_done(result)
+        except Exception as exc:  # showing a result must not take the window down
+            tail = traceback.format_exception_only(type(exc), exc)[-1].strip()
+            self.failed.emit(job.name, f"showing the result failed: {tail}")
+        else:
+            self.finished.emit(job.name, result)
         self._next()
 
     def _on_error(self, message: str) -> None:

@@ -34,7 +34,7 @@ from openpyxl.worksheet.worksheet import Worksheet
 from leaguegrid.io.atomic import StrPath, atomic_write, refuse_overwriting_input
 from leaguegrid.io.csv_out import FORMULA_START
 from leaguegrid.model import League, Schedule
-from leaguegrid.schedule.dates import DatedFixture, dated_fixtures
+from leaguegrid.schedule.dates import DatedFixture, dated_fixtures, natural_key
 
 CAUTION = (
     "LeagueGrid counts and proposes schedules. Before publishing, a coordinator checks every "
@@ -203,7 +203,7 @@ def _team_names(league: League) -> list[str]:
     names = set(league.teams)
     for f in league.fixtures:
         names.update(f.teams)
-    return sorted(names, key=lambda n: (n.casefold(), n))
+    return sorted(names, key=natural_key)
 
 
 def _clubs(league: League, teams: Sequence[str]) -> dict[str, set[str]]:
@@ -213,7 +213,7 @@ def _clubs(league: League, teams: Sequence[str]) -> dict[str, set[str]]:
         team = league.teams.get(name)
         if team is not None and team.club:
             clubs.setdefault(team.club, set()).add(name)
-    return dict(sorted(clubs.items(), key=lambda kv: (kv[0].casefold(), kv[0])))
+    return dict(sorted(clubs.items(), key=lambda kv: natural_key(kv[0])))
 
 
 def _summary_rows(league: League, schedule: Schedule, s: CalendarSummary) -> list[list[object]]:
@@ -290,7 +290,7 @@ def build_calendar_workbook(
     for team in teams:
         mine = [r for r in by_date if team in r.fixture.teams]
         _add_sheet(wb, taken, team, TEAM_COLUMNS, (_team_row(team, r) for r in mine))
-    venues = sorted({r.fixture.venue for r in rows if r.fixture.venue}, key=str.casefold)
+    venues = sorted({r.fixture.venue for r in rows if r.fixture.venue}, key=natural_key)
     for venue in venues:
         here = [r for r in by_date if r.fixture.venue == venue]
         _add_sheet(wb, taken, f"Venue {venue}", VENUE_COLUMNS, (_venue_row(r) for r in here))

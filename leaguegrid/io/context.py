@@ -16,6 +16,7 @@ class ReadContext:
     report: Report
     settings: Settings = field(default_factory=Settings)
     shared_place: Place | None = None  # the Settings cell that gave Shared, when it did
+    legs_place: Place | None = None  # the Settings cell that gave Legs, when it did
     lookup: RoundLookup = field(default_factory=RoundLookup)
     team_names: NameBook = field(init=False)
     venue_names: NameBook = field(init=False)

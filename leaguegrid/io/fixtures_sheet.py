@@ -249,13 +249,15 @@ def _default_labels(drafts: list[_Draft], taken: set[str]) -> None:
 
 
 def _set_legs(drafts: list[_Draft]) -> None:
-    """Leg = how many times this same home-away pairing has occurred so far (sheet order)."""
-    seen: Counter[tuple[str | None, str | None]] = Counter()
+    """Leg = which meeting of the two teams this is, in sheet order: 1 for the first, 2 for the
+    return (whichever side is at home), 3 for a third meeting, ..."""
+    seen: Counter[frozenset[str]] = Counter()
     for draft in drafts:
         fixture = draft.fixture
         if fixture.home and fixture.away:
-            seen[(fixture.home, fixture.away)] += 1
-            fixture.leg = seen[(fixture.home, fixture.away)]
+            pair = frozenset((fixture.home, fixture.away))
+            seen[pair] += 1
+            fixture.leg = seen[pair]
 
 
 def complete_from_teams(fixtures: list[Fixture], ctx: ReadContext) -> None:

@@ -33,7 +33,12 @@ from pathlib import Path
 from leaguegrid.io.atomic import ExportError, StrPath, atomic_write, refuse_overwriting_input
 from leaguegrid.io.calendar_xlsx import CAUTION
 from leaguegrid.model import Fixture, League, RoundInfo, Schedule
-from leaguegrid.schedule.dates import DatedFixture, dated_fixtures, league_time_zone
+from leaguegrid.schedule.dates import (
+    DatedFixture,
+    dated_fixtures,
+    league_time_zone,
+    natural_key,
+)
 
 PRODID = "-//LeagueGrid//LeagueGrid calendar export//EN"
 UID_DOMAIN = "leaguegrid.invalid"
@@ -214,7 +219,7 @@ def ics_calendars(league: League, schedule: Schedule) -> list[tuple[str, str, li
     rows.sort(key=lambda r: (r.round.date, r.round.time or dt.time.min, *r.sort_key()))
     teams = sorted(
         set(league.teams) | {t for f in league.fixtures for t in f.teams},
-        key=lambda n: (n.casefold(), n),
+        key=natural_key,
     )
     clubs: dict[str, set[str]] = {}
     for name in teams:
@@ -225,7 +230,7 @@ def ics_calendars(league: League, schedule: Schedule) -> list[tuple[str, str, li
     out += [("team", t, [r for r in rows if t in r.fixture.teams]) for t in teams]
     out += [
         ("club", c, [r for r in rows if members.intersection(r.fixture.teams)])
-        for c, members in sorted(clubs.items(), key=lambda kv: (kv[0].casefold(), kv[0]))
+        for c, members in sorted(clubs.items(), key=lambda kv: natural_key(kv[0]))
     ]
     return out
 

@@ -173,6 +173,7 @@ def _build(
     if settings_table is not None:
         read = read_settings(settings_table, report)
         ctx.settings, ctx.shared_place = read.settings, read.shared_place
+        ctx.legs_place = read.legs_place
     if extra_shared:
         ctx.settings.shared = tuple(dict.fromkeys([*ctx.settings.shared, *extra_shared]))
     rounds_fixed = "rounds" in found
@@ -321,11 +322,11 @@ def _shared_columns(ctx: ReadContext, fixtures: Table | None) -> None:
 
 def _after_sheet_fixtures(fixtures: list[Fixture], teams: TeamsRead, ctx: ReadContext) -> None:
     """Warnings that only make sense once a Fixtures sheet has been read."""
-    if ctx.settings.legs == 2:
+    if ctx.settings.legs == 2 and not any(f.leg >= 2 for f in fixtures):
         ctx.report.warn(
-            "Legs applies only to fixtures generated from the Teams sheet; the "
-            "Fixtures sheet lists every fixture",
-            Place("Settings"),
+            "Legs is 2, but no two teams meet twice in the Fixtures sheet, so there are no "
+            "return fixtures",
+            ctx.legs_place or Place("Settings"),
         )
     playing = {t for f in fixtures for t in f.teams}
     for name in teams.order:

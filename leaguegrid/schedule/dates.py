@@ -17,6 +17,7 @@ from __future__ import annotations
 
 import datetime as dt
 import os
+import re
 import zoneinfo
 from dataclasses import dataclass
 from pathlib import Path
@@ -111,6 +112,14 @@ def league_time_zone(league: League) -> dt.tzinfo:
     return zone if zone is not None else dt.UTC
 
 
+def natural_key(text: str | None) -> tuple:
+    """Sort key reading digit runs as numbers, so "U8" comes before "U10" and "Pitch 2" before
+    "Pitch 10"; case-insensitive, with the text itself breaking ties."""
+    parts = re.split(r"(\d+)", text or "")
+    return (tuple((0, int(p), "") if p.isdigit() else (1, 0, p.casefold()) for p in parts if p),
+            text or "")
+
+
 @dataclass(frozen=True)
 class DatedFixture:
     """A fixture of a schedule with the round it was given."""
@@ -119,9 +128,11 @@ class DatedFixture:
     round: RoundInfo
 
     def sort_key(self) -> tuple:
-        """Round, then division, venue, pitch and label, so every export lists rows alike."""
+        """Round, then division, venue, pitch and label (in natural order), so every export
+        lists rows alike."""
         f = self.fixture
-        return (self.round.number, f.division or "", f.venue or "", f.pitch or "", f.label)
+        return (self.round.number, natural_key(f.division), natural_key(f.venue),
+                natural_key(f.pitch), natural_key(f.label))
 
 
 def dated_fixtures(league: League, schedule: Schedule) -> list[DatedFixture]:

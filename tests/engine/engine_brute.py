@@ -20,10 +20,9 @@ def assignments(
     exclusions = {v: set(rs) for v, rs in (exclusions or {}).items()}
     choices = []
     for v in nodes:
+        opts = list(range(1, k + 1))
         if v in pins:
             opts = [pins[v]] if 1 <= pins[v] <= k else []
-        else:
-            opts = list(range(1, k + 1))
         choices.append([r for r in opts if r not in exclusions.get(v, set())])
     out = []
     for combo in itertools.product(*choices):
@@ -40,7 +39,8 @@ def count(G, k, pins=None, exclusions=None) -> int:
 
 def count_all_used(G, k, pins=None, exclusions=None) -> int:
     """Number of valid assignments using every round 1..k, by enumeration."""
-    return sum(1 for a in assignments(G, k, pins, exclusions) if set(a.values()) == set(range(1, k + 1)))
+    every = set(range(1, k + 1))
+    return sum(1 for a in assignments(G, k, pins, exclusions) if set(a.values()) == every)
 
 
 def random_graph(n: int, m: int, seed: int) -> nx.Graph:

@@ -120,3 +120,29 @@ def test_never_overwrites_the_input(tmp_path):
     with pytest.raises(InputOverwriteError):
         write_schedule_csv(source, league, schedule)
     assert source.read_text() == "Fixture,Home,Away\n"
+
+
+def test_demo_league_round_trip(tmp_path):
+    from pathlib import Path
+
+    from leaguegrid.clashgraph import build_clash_graph
+    from leaguegrid.io.league_reader import load_league
+    from leaguegrid.schedule.draw import plan
+
+    demo = Path(__file__).resolve().parents[2] / "demo_leagues" / "clubday.xlsx"
+    league = load_league(demo).league
+    graph = build_clash_graph(league)
+    schedule = plan(league, graph, 6, seed=9).schedule
+    out = tmp_path / "clubday.csv"
+    write_schedule_csv(out, league, schedule)
+    with out.open(encoding="utf-8-sig", newline="") as fh:
+        rows = list(csv.DictReader(fh))
+    assert sorted(r["Fixture"] for r in rows) == sorted(f.label for f in league.fixtures)
+    for r in rows:
+        assert int(r["Round"]) == schedule.assignment[r["Fixture"]]
+        assert r["Date"] == "2025-10-04"
+        assert r["Pitch"] == league.fixture(r["Fixture"]).pitch
+    slot = {1: "09:00", 2: "09:50", 3: "10:40", 4: "11:30", 5: "12:20", 6: "13:10"}
+    assert all(r["Time"] == slot[int(r["Round"])] for r in rows)
+    text = out.read_text(encoding="utf-8-sig")
+    assert not any(clash.reason in text for clash in league.clash_rows)

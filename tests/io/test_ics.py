@@ -314,3 +314,41 @@ def test_never_overwrites_the_input(tmp_path):
         write_ics_files(tmp_path, league, schedule, now=NOW)
     assert source.read_bytes() == b"not really a league"
     assert [p.name for p in tmp_path.iterdir()] == ["team-=Hawks.ics"]
+
+
+# --- the demo leagues, loaded by the reader, planned and exported --------------------------
+
+DEMO_DIR = Path(__file__).resolve().parents[2] / "demo_leagues"
+
+
+@pytest.mark.parametrize(("name", "rounds"), [("clubday.xlsx", 6), ("season.xlsx", 6)])
+def test_demo_league_calendars(tmp_path, name, rounds):
+    from leaguegrid.clashgraph import build_clash_graph
+    from leaguegrid.io.league_reader import load_league
+    from leaguegrid.schedule.draw import plan
+
+    league = load_league(DEMO_DIR / name).league
+    graph = build_clash_graph(league)
+    schedule = plan(league, graph, rounds, seed=5).schedule
+    cals = export(tmp_path, league, schedule)
+    everything = next(cal for n, cal in cals.items() if n.startswith("league-"))
+    events = {unescape(ev["SUMMARY"][1]): ev for ev in everything["events"]}
+    assert sorted(events) == sorted(f.label for f in league.fixtures)
+    starts: dict[object, list[str]] = {}
+    for label, ev in events.items():
+        starts.setdefault(event_start(ev), []).append(label)
+    for labels in starts.values():  # one start per round: no clash inside a start time
+        assert not any(graph.has_edge(a, b) for a in labels for b in labels if a < b)
+    def in_round(n: int) -> list[dict]:
+        return [ev for label, ev in events.items() if schedule.assignment[label] == n]
+
+    if name == "clubday.xlsx":  # 2025-10-04 in Europe/London is BST, UTC+1; slots of 50 min
+        first = in_round(1)
+        assert {event_start(ev) for ev in first} == {dt.datetime(2025, 10, 4, 8, 0, tzinfo=dt.UTC)}
+        assert {event_end(ev) for ev in first} == {dt.datetime(2025, 10, 4, 8, 50, tzinfo=dt.UTC)}
+    else:  # Start 2025-09-06, every 7 days (the first Skip date, 2025-10-25, is round 8's step)
+        assert {event_start(ev) for ev in in_round(6)} == {dt.date(2025, 10, 11)}
+    data = b"".join(p.read_bytes() for p in tmp_path.iterdir())
+    for clash in league.clash_rows:
+        assert clash.reason.encode() not in data
+    assert len(cals) == 1 + len(league.teams) + len({t.club for t in league.teams.values()})

@@ -10,7 +10,13 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from leaguegrid.model import Fixture, League, RoundInfo, Schedule, Settings
-from leaguegrid.schedule.dates import DatesError, dated_fixtures, league_time_zone, round_dates
+from leaguegrid.schedule.dates import (
+    DatesError,
+    dated_fixtures,
+    league_time_zone,
+    natural_key,
+    round_dates,
+)
 
 D = dt.date
 
@@ -162,3 +168,17 @@ def test_dated_fixtures_rejects_a_schedule_that_does_not_fit(assignment, message
     with pytest.raises(DatesError) as err:
         dated_fixtures(_two_fixture_league(), Schedule(3, assignment))
     assert str(err.value) == message
+
+
+def test_rows_of_a_round_in_natural_division_and_pitch_order():
+    fixtures = [
+        Fixture("E v F", "E", "F", "Park", "Pitch 10", "U10"),
+        Fixture("A v B", "A", "B", "Park", "Pitch 2", "U8"),
+        Fixture("C v D", "C", "D", "Park", "Pitch 1", "U10"),
+    ]
+    lg = league_with(fixtures=fixtures)
+    rows = dated_fixtures(lg, Schedule(1, {"A v B": 1, "C v D": 1, "E v F": 1}))
+    assert [r.fixture.label for r in rows] == ["A v B", "C v D", "E v F"]
+    assert sorted(["u10", "U9", "U10", "Pitch 2", "pitch 10"], key=natural_key) == [
+        "Pitch 2", "pitch 10", "U9", "U10", "u10"
+    ]

@@ -1,0 +1,164 @@
+"""The `plan` and `whatif` commands: draw a schedule and export it; rank what clashes cost."""
+
+from __future__ import annotations
+
+import argparse
+import sys
+
+from leaguegrid import engine
+from leaguegrid.cli import UsageError
+from leaguegrid.io.atomic import ExportError
+from leaguegrid.model import League, Schedule
+from leaguegrid.schedule.dates import DatesError, dated_fixtures
+from leaguegrid.schedule.draw import PlanResult, fresh_seed, plan
+from leaguegrid.schedule.score import TERMS
+
+EXIT = {"found": 0, "impossible": 3, "budget": 5, "cancelled": 5}
+
+
+def parse_terms(text: str | None) -> dict[str, float] | None:
+    """'balance,travel=2' -> {'balance': 1.0, 'travel': 2.0}; None when no terms were given."""
+    if not text:
+        return None
+    terms: dict[str, float] = {}
+    for part in text.split(","):
+        name, _, weight = part.strip().partition("=")
+        name = name.strip().lower()
+        if name not in TERMS:
+            raise UsageError(f"unknown score term {name!r}; terms: {', '.join(TERMS)}")
+        try:
+            terms[name] = float(weight) if weight else 1.0
+        except ValueError as err:
+            raise UsageError(f"score term {name!r} needs a number after '=', not {weight!r}") \
+                from err
+    return terms
+
+
+def check_round_limit(league: League, rounds: int) -> None:
+    """A Rounds sheet lists every round there is: asking for more is a usage error."""
+    if rounds < 1:
+        raise UsageError(f"--rounds must be a positive whole number, not {rounds}")
+    if league.rounds_fixed and rounds > len(league.rounds):
+        raise UsageError(f"the Rounds sheet lists {len(league.rounds)} rounds; "
+                         f"--rounds {rounds} asks for more")
+
+
+def print_schedule(league: League, schedule: Schedule) -> None:
+    """The schedule round by round, with dates and times where the league gives them."""
+    rows = dated_fixtures(league, schedule)
+    current = None
+    for row in rows:
+        info = row.round
+        if info.number != current:
+            current = info.number
+            when = " ".join(x for x in (info.date and info.date.isoformat(),
+                                        info.time and info.time.strftime("%H:%M")) if x)
+            print(f"\nRound {info.number}" + (f" ({when})" if when else ""))
+        f = row.fixture
+        place = f" at {f.venue}" + (f", pitch {f.pitch}" if f.pitch else "") if f.venue else ""
+        print(f"  {f.label}{place}")
+    empty = [r for r, labels in schedule.by_round().items() if not labels]
+    if empty:
+        print(f"\nEmpty rounds: {', '.join(map(str, empty))}")
+
+
+def run_plan(args: argparse.Namespace, load) -> int:
+    """`leaguegrid plan`: one schedule for K rounds, printed and optionally exported."""
+    loaded = load(args.file)
+    if loaded is None:
+        return 1
+    league, graph = loaded
+    check_round_limit(league, args.rounds)
+    terms = parse_terms(args.score)
+    if args.draws < 1:
+        raise UsageError(f"--draws must be at least 1, not {args.draws}")
+    seed = args.seed if args.seed is not None else fresh_seed()
+    result = plan(league, graph, args.rounds, seed, draws=args.draws, terms=terms,
+                  budget=args.budget)
+    print(f"{league.name}: {args.rounds} rounds, seed {seed}"
+          + ("" if args.seed is not None else f" (drawn; --seed {seed} gives this again)"))
+    if result.status != "found" or result.schedule is None:
+        return _report_failure(result, args.rounds)
+    schedule = result.schedule
+    if result.assignments is not None:
+        print(f"Valid assignments for {args.rounds} rounds: {result.assignments:,} (exact)")
+    for note in schedule.notes:
+        print(f"Note: {note}")
+    if schedule.rules_counted:
+        print("Counts include: " + "; ".join(schedule.rules_counted))
+    if schedule.rules_generator:
+        print("Enforced by the generator only (not in the counts): "
+              + "; ".join(schedule.rules_generator))
+    if result.score is not None:
+        print("Score:")
+        for line in result.score.lines():
+            print(f"  {line}")
+    try:
+        print_schedule(league, schedule)
+        return _export(args, league, graph, result)
+    except DatesError as err:
+        print(f"leaguegrid plan: {err}", file=sys.stderr)
+        return 1
+
+
+def _report_failure(result: PlanResult, rounds: int) -> int:
+    """Say why no schedule came out: proven impossible (3) or stopped (5)."""
+    if result.status == "impossible":
+        print(f"No schedule with {rounds} rounds exists:", file=sys.stderr)
+        for reason in result.reasons:
+            print(f"  {reason}", file=sys.stderr)
+    elif result.status == "budget":
+        print("Stopped at the budget before a schedule was found; nothing is proven. "
+              "Try a larger --budget.", file=sys.stderr)
+        for reason in result.reasons:
+            print(f"  {reason}", file=sys.stderr)
+    else:
+        print("Cancelled before a schedule was found.", file=sys.stderr)
+    return EXIT[result.status]
+
+
+def _export(args: argparse.Namespace, league: League, graph, result: PlanResult) -> int:
+    """Write the files asked for; exit 4 when one cannot be written."""
+    from leaguegrid.io.calendar_xlsx import CalendarSummary, write_calendar_xlsx
+    from leaguegrid.io.csv_out import write_schedule_csv
+    from leaguegrid.io.ics import write_ics_files
+
+    schedule = result.schedule
+    assert schedule is not None
+    written: list[str] = []
+    try:
+        if args.out is not None:
+            summary = CalendarSummary(
+                fixtures=len(league.fixtures),
+                clashes=graph.number_of_edges(),
+                clash_reasons_count=len(league.clash_rows),
+                min_rounds=_fewest(result, args.budget),
+                assignments=result.assignments,
+                seed=schedule.seed,
+                rules_counted=list(schedule.rules_counted),
+                rules_generator=list(schedule.rules_generator),
+                notes=list(schedule.notes),
+            )
+            write_calendar_xlsx(args.out, league, schedule, summary)
+            written.append(str(args.out))
+        if args.ics is not None:
+            written += [str(p) for p in write_ics_files(args.ics, league, schedule)]
+        if args.csv is not None:
+            write_schedule_csv(args.csv, league, schedule)
+            written.append(str(args.csv))
+    except (ExportError, OSError) as err:
+        print(f"leaguegrid plan: could not write: {err}", file=sys.stderr)
+        return 4
+    if written:
+        print("\nWrote: " + ", ".join(written))
+    return 0
+
+
+def _fewest(result: PlanResult, budget: float) -> int | None:
+    """The fewest rounds of the counting model for the summary, or None beyond the budget."""
+    if result.model is None:
+        return None
+    try:
+        return result.model.fewest_rounds(engine.Hooks(budget=budget))
+    except (engine.BudgetExceeded, engine.Cancelled):
+        return None
