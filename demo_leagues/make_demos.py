@@ -108,6 +108,7 @@ def small() -> Workbook:
 CLUB = "Brackenlow"
 GROUND = "Brackenlow Park"
 CLUBDAY = dt.date(2025, 10, 4)
+AGE_GROUPS = ("U8", "U9", "U10", "U11", "U12", "U14")
 
 
 def clubday() -> Workbook:
@@ -138,10 +139,8 @@ def clubday() -> Workbook:
         (f"{b} U14", "Corvid Rise U14", "Pitch 4", "Dara M."),
         ("Tarnwater U14", "Corvid Rise U14", "Pitch 4", "Ines K."),
     ]
-    division = {"U8": "U8", "U9": "U9", "U10": "U10", "U11": "U11", "U12": "U12", "U14": "U14"}
-
     def age(team: str) -> str:
-        return next(word for word in team.split() if word in division)
+        return next(word for word in team.split() if word in AGE_GROUPS)
 
     fixtures = [
         (f"{h} v {a}", h, a, GROUND, pitch, age(h), ref or "") for h, a, pitch, ref in plan
@@ -150,13 +149,11 @@ def clubday() -> Workbook:
     visitors = sorted({t for _, h, a, *_ in fixtures for t in (h, a) if not t.startswith(b)})
     teams = [(t, GROUND, age(t), b) for t in own_teams]
     teams += [(t, None, age(t), t.rsplit(" ", 1)[0]) for t in visitors]
+    first_slot = dt.datetime.combine(CLUBDAY, dt.time(9, 0))
     slots = [
-        (n, CLUBDAY, (dt.datetime.combine(CLUBDAY, dt.time(9, 0)) + dt.timedelta(minutes=50 * i))
-         .time(), note)
-        for i, (n, note) in enumerate(
-            [(1, ""), (2, ""), (3, ""), (4, "Mini pitches close at 12:30"), (5, ""), (6, ""),
-             (7, ""), (8, "Last slot: Pitch 4 only has lights booked until 16:00")]
-        )
+        (n, CLUBDAY, (first_slot + dt.timedelta(minutes=50 * (n - 1))).time(),
+         "Gates open at 08:30" if n == 1 else None)
+        for n in range(1, 9)
     ]
     wb = new_workbook()
     add_sheet(wb, "Fixtures",

@@ -17,7 +17,9 @@ import networkx as nx
 from flint import fmpz_poly
 
 from leaguegrid import engine
+from leaguegrid.model import League
 from leaguegrid.polytext import factored
+from leaguegrid.schedule.constraints import CountingModel, build_model
 
 Number = int | engine.Estimate | None
 Progress = Callable[[float, str], None]
@@ -123,42 +125,46 @@ def groupings_from_polynomial(poly: fmpz_poly) -> list[int]:
 
 
 def count_report(
+    league: League,
     graph: nx.Graph,
-    pins: dict | None = None,
     rounds: list[int] | None = None,
-    round_limit: int | None = None,
     budget: float | None = None,
     progress: Progress | None = None,
     cancel: threading.Event | None = None,
     estimate: bool = True,
 ) -> CountReport:
-    """The counts table for a clash graph with optional pins, within a budget (seconds).
+    """The counts table of a league and its clash graph (build_clash_graph), within a budget.
 
-    `rounds` None means the default range, capped at `round_limit` (a Rounds sheet's length).
-    Exact numbers are ints; what the budget cuts short is None, or an engine.Estimate when
-    `estimate` is set (always labelled, never shown as exact).
+    Assignments and every-round-used follow the counting model (pins, played fixtures, ties,
+    splits, blocked rounds, return half: schedule.constraints); the polynomial and groupings are
+    of the clash graph with its splits. `rounds` None means the default range, which stops at a
+    Rounds sheet's last round. Exact numbers are ints; what the budget cuts short is None, or an
+    engine.Estimate when `estimate` is set (always labelled, never shown as exact).
     """
-    pins = pins or None
     clock = _Clock(budget, progress, cancel)
+    top = max(rounds) if rounds else graph.number_of_nodes() or 1
+    base = build_model(league, graph, max(top, 1))
+    ties = base.graph.number_of_nodes() != base.clashes.number_of_nodes()
+    constrained = bool(base.pins or base.exclusions or ties)
     report = CountReport(
-        fixtures=graph.number_of_nodes(),
-        clashes=graph.number_of_edges(),
-        pinned=bool(pins),
+        fixtures=base.clashes.number_of_nodes(),
+        clashes=base.clashes.number_of_edges(),
+        pinned=constrained,
         min_rounds=None,
-        min_rounds_bounds=engine.min_rounds_bounds(graph, pins=pins),
+        min_rounds_bounds=_bounds(base),
     )
     try:
-        found = clock.run(lambda: engine.min_rounds(
-            graph, pins=pins, hooks=clock.hooks("fewest rounds", 0.0, 0.2)))
+        found = clock.run(lambda: base.fewest_rounds(clock.hooks("fewest rounds", 0.0, 0.2)))
         if found is not None:
             report.min_rounds = int(found)
             report.min_rounds_bounds = (report.min_rounds, report.min_rounds)
         if rounds is None:
-            rounds = default_rounds(report.min_rounds_bounds[0], round_limit)
+            limit = len(league.rounds) if league.rounds_fixed else None
+            rounds = default_rounds(report.min_rounds_bounds[0], limit)
         report.rows = [CountRow(rounds=k) for k in rounds]
         report.polynomial = clock.run(lambda: engine.chromatic_polynomial(
-            graph, hooks=clock.hooks("polynomial", 0.2, 0.3, POLYNOMIAL_SHARE)))
-        _fill_rows(report, graph, pins, clock, estimate)
+            base.clashes, hooks=clock.hooks("polynomial", 0.2, 0.3, POLYNOMIAL_SHARE)))
+        _fill_rows(report, base, clock, estimate)
     except _Stop:
         report.cancelled = True
     report.complete = not report.cancelled and report.min_rounds is not None and all(
@@ -166,37 +172,51 @@ def count_report(
     return report
 
 
-def _fill_rows(report: CountReport, graph: nx.Graph, pins: dict | None, clock: _Clock,
-               estimate: bool) -> None:
-    """Each row's numbers: from the polynomial where it is known and nothing is pinned, else
-    from the engine's fixed-K counts; labelled estimates where exact work ran out of budget."""
+def _bounds(model: CountingModel) -> tuple[int, int]:
+    """Proven bounds on the fewest rounds (a clique below, a schedule found above)."""
+    if model.contradictions:
+        return (0, 0)
+    return engine.min_rounds_bounds(model.graph, pins=model.pins, exclusions=model.exclusions)
+
+
+def _fill_rows(report: CountReport, base: CountingModel, clock: _Clock, estimate: bool) -> None:
+    """Each row's numbers: from the polynomial when nothing but clashes constrains the league,
+    else from the counting model at K; labelled estimates where exact work ran out of budget."""
     groups = groupings_from_polynomial(report.polynomial) if report.polynomial is not None else None
     n = max(len(report.rows), 1)
     for i, row in enumerate(report.rows):
         k = row.rounds
         if report.min_rounds is not None and k < report.min_rounds:
-            row.assignments = row.all_rounds_used = row.groupings = 0
+            row.assignments = row.all_rounds_used = 0
+            row.groupings = groups[k] if groups is not None and k < len(groups) else 0
             continue
         if groups is not None:
             row.groupings = groups[k] if k < len(groups) else 0
-            if not pins:
+            if not report.pinned:
                 row.assignments = int(report.polynomial(k))
                 row.all_rounds_used = row.groupings * math.factorial(k)
                 continue
+        model = base.at(k)
         start = 0.5 + 0.5 * i / n
-        row.assignments = clock.run(lambda k=k, s=start: engine.count_assignments(
-            graph, k, pins=pins, hooks=clock.hooks(f"{k} rounds", s, 0.25 / n)))
-        row.all_rounds_used = clock.run(lambda k=k, s=start: engine.count_all_rounds_used(
-            graph, k, pins=pins, hooks=clock.hooks(f"{k} rounds, every round used",
-                                                   s + 0.25 / n, 0.25 / n)))
+        row.assignments = clock.run(lambda m=model, s=start, k=k: m.count(
+            clock.hooks(f"{k} rounds", s, 0.25 / n)))
+        row.all_rounds_used = clock.run(lambda m=model, s=start, k=k: m.count_all_rounds_used(
+            clock.hooks(f"{k} rounds, every round used", s + 0.25 / n, 0.25 / n)))
         if row.groupings is None:
-            if pins:
-                unpinned = clock.run(lambda k=k, s=start: engine.count_all_rounds_used(
-                    graph, k, hooks=clock.hooks(f"{k} rounds, groupings", s, 0.0)))
-            else:
-                unpinned = row.all_rounds_used
-            if unpinned is not None:
-                row.groupings = unpinned // math.factorial(k)
+            row.groupings = _groupings_at(report, base, k, row, clock, start)
         row.exact = None not in (row.assignments, row.all_rounds_used, row.groupings)
         if not row.exact and estimate and row.assignments is None:
-            row.assignments = engine.estimate_assignments(graph, k, pins=pins)
+            row.assignments = engine.estimate_assignments(
+                model.graph, k, pins=model.pins, exclusions=model.exclusions)
+
+
+def _groupings_at(report: CountReport, base: CountingModel, k: int, row: CountRow,
+                  clock: _Clock, start: float) -> int | None:
+    """Groupings of the clash graph into exactly K rounds without the polynomial:
+    every-round-used of the unconstrained graph divided by K!."""
+    if report.pinned:
+        unconstrained = clock.run(lambda: engine.count_all_rounds_used(
+            base.clashes, k, hooks=clock.hooks(f"{k} rounds, groupings", start, 0.0)))
+    else:
+        unconstrained = row.all_rounds_used
+    return None if unconstrained is None else unconstrained // math.factorial(k)

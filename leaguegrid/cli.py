@@ -125,8 +125,7 @@ def cmd_count(args: argparse.Namespace) -> int:
         if limit is not None and b > limit:
             raise UsageError(f"the Rounds sheet lists {limit} rounds; --rounds {b} asks for more")
         rounds = list(range(a, b + 1))
-    report = count_report(graph, pins=league.pins, rounds=rounds, round_limit=limit,
-                          budget=args.budget)
+    report = count_report(league, graph, rounds=rounds, budget=args.budget)
     print_counts(report, league, sys.stdout, as_json=args.json)
     return OK if report.complete else STOPPED
 
@@ -144,10 +143,19 @@ def cmd_whatif(args: argparse.Namespace) -> int:
 
 
 def open_window(path: Path | None) -> int:
-    """Open the desktop window on FILE (or the demo league)."""
-    from leaguegrid.gui.app import run
+    """Open the desktop window on FILE (or the demo league). When no window can start (no
+    display, missing system libraries), say why in one sentence and print the league's counts."""
+    from leaguegrid.gui.startup import check as window_problem
 
-    return run(str(path) if path is not None else str(demo_path()))
+    target = path if path is not None else demo_path()
+    problem = window_problem()
+    if problem is None:
+        from leaguegrid.gui.app import run
+
+        return run(str(target))
+    print(problem, file=sys.stderr)
+    print(f"Showing the counts of {target.name} on the command line instead.\n", file=sys.stderr)
+    return cmd_count(argparse.Namespace(file=target, rounds=None, json=False, budget=60.0))
 
 
 def main(argv: Sequence[str] | None = None) -> int:

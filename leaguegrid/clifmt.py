@@ -136,8 +136,8 @@ def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool
     print(f"Chromatic polynomial: {poly if poly is not None else 'not computed within the budget'}",
           file=out)
     if report.pinned:
-        print("(The polynomial and the groupings are of the clash graph without pins; "
-              "assignments and every-round-used respect the pins.)", file=out)
+        print("(The polynomial and the groupings are of the clash graph itself; assignments and "
+              "every-round-used respect the pins, ties, played and blocked rounds.)", file=out)
     print("", file=out)
     print("Rounds | Assignments | Every round used | Groupings", file=out)
     for row in report.rows:

@@ -42,7 +42,7 @@ def greedy_order(g: Graph, rng: random.Random | None = None, start: int | None =
             for c in candidates:
                 nb_done = adj[c] & processed
                 leaving = sum(1 for u in bits(nb_done) if unproc_deg[u] == 1)
-                entering = 1 if unproc_deg[c] - nb_done.bit_count() > 0 else 0
+                entering = 1 if unproc_deg[c] > 0 else 0
                 key = (entering - leaving, -nb_done.bit_count(), rng.random() if rng else c)
                 if best_key is None or key < best_key:
                     best_key = key

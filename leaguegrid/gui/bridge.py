@@ -136,32 +136,18 @@ def estimate_seconds(graph: nx.Graph) -> float | None:
         return None
 
 
-def counting_graph(league: League, graph: nx.Graph) -> tuple[nx.Graph, dict[str, int], list[str]]:
-    """What the counts are taken on: the clash graph with splits added and tied fixtures merged,
-    the pins per node, and sentences for what stops any count (contradictions) or is left out."""
-    from leaguegrid.schedule.constraints import build_model
-
-    rounds = max([len(league.fixtures), 1] + [f.pin for f in league.fixtures if f.pin])
-    model = build_model(league, graph, rounds)
-    notes = list(model.contradictions)
-    if model.exclusions:
-        notes.append("Blocked rounds and Return half are not in these counts (each schedule "
-                     "drawn respects them).")
-    return model.graph, dict(model.pins), notes
-
-
 def count(league: League, graph: nx.Graph, progress: Progress, cancel: threading.Event,
           rounds: list[int] | None = None, budget: float | None = COUNT_BUDGET) -> Any:
-    """The counts table (analysis.CountReport) of a league's counting graph (ties merged,
-    pins respected); what the budget (seconds) cuts short is missing or a labelled estimate.
-    The report gets `notes`: contradictions and what the counts leave out."""
+    """The counts table (analysis.CountReport) of a league with the window's edits: pins, ties,
+    splits and blocked rounds counted exactly; what the budget (seconds) cuts short is missing
+    or a labelled estimate. The report gets `notes`: contradictions that make every count 0."""
     from leaguegrid import analysis
+    from leaguegrid.schedule.constraints import build_model
 
-    counted, pins, notes = counting_graph(league, graph)
-    limit = len(league.rounds) if league.rounds_fixed else None
-    report = analysis.count_report(counted, pins=pins, rounds=rounds, round_limit=limit,
-                                   budget=budget, progress=progress, cancel=cancel)
-    report.notes = notes
+    report = analysis.count_report(league, graph, rounds=rounds, budget=budget,
+                                   progress=progress, cancel=cancel)
+    top = max([len(league.fixtures), 1] + [f.pin for f in league.fixtures if f.pin])
+    report.notes = list(build_model(league, graph, top).contradictions)
     return report
 
 
@@ -366,3 +352,16 @@ def draw(league: League, graph: nx.Graph, k: int, seed: int, draws: int, progres
     if result.status == "budget":
         return None, f"No schedule found for {k} rounds within the time allowed."
     return None, "Drawing was cancelled."
+
+
+def whatif(league: League, graph: nx.Graph, k: int, progress: Progress,
+           cancel: threading.Event, budget: float | None = COUNT_BUDGET) -> tuple[Any, dict]:
+    """The clash reasons ranked by what waiving each gains for K rounds (schedule.whatif), and
+    each reason's text -> its Reason, so the window can waive it."""
+    from leaguegrid.clashgraph import reason_edges
+    from leaguegrid.schedule.constraints import with_splits
+    from leaguegrid.schedule.whatif import whatif as rank
+
+    result = rank(league, graph, k, budget=budget, progress=progress, cancel=cancel)
+    by_text = {str(r): r for r in reason_edges(with_splits(league, graph))}
+    return result, by_text

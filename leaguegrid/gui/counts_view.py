@@ -140,8 +140,8 @@ class CountsView(QWidget):
             fewest = f"fewest rounds between {low} and {high} (not settled)"
         parts = [f"{report.fixtures} fixtures, {report.clashes} clashes, {fewest}."]
         if report.pinned:
-            parts.append("Pins are respected in the counts per round; the polynomial and the "
-                         "groupings describe the clash graph without pins.")
+            parts.append("Pins, ties and blocked rounds are respected in the assignments; the "
+                         "polynomial and the groupings describe the clash graph itself.")
         if getattr(report, "cancelled", False):
             parts.append("Stopped before the end: what was not finished shows as "
                          f"“{numbers.NOT_COMPUTED}”.")

@@ -668,8 +668,8 @@ class MainWindow(QMainWindow):
         def work(progress, cancel):
             return bridge.whatif(league, graph, k, progress, cancel)
 
-        def done(result: Any) -> None:
-            self.whatif_view.show_result(k, result)
+        def done(out: Any) -> None:
+            self.whatif_view.show_result(k, *out)
             self.tabs.setCurrentWidget(self.whatif_view)
             self.stage_label.setText(f"Clash reasons ranked for {k} rounds.")
 

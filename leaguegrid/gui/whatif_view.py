@@ -3,6 +3,7 @@
 
 from __future__ import annotations
 
+from types import SimpleNamespace
 from typing import Any
 
 from PySide6.QtCore import Qt, Signal
@@ -36,6 +37,7 @@ class WhatIfView(QWidget):
         super().__init__(parent)
         self.doc = doc
         self.rows: list[Any] = []
+        self.by_text: dict[str, Any] = {}
         self.summary = QLabel("Rank the clash reasons (Ctrl+I) to see which ones cost the most "
                               "schedules. Waiving or adding a clash acts on a copy of the league: "
                               "the workbook is never changed, and Undo takes it back.")
@@ -73,9 +75,18 @@ class WhatIfView(QWidget):
         self.table.setRowCount(0)
         self._show_state()
 
-    def show_result(self, k: int, result: Any) -> None:
-        """Fill the table from the schedules' what-if result for K rounds."""
+    def show_result(self, k: int, result: Any, by_text: dict[str, Any]) -> None:
+        """Fill the table from the schedules' what-if result for K rounds; `by_text` maps each
+        reason's text to its Reason. Reasons waived now are listed last, to restore them."""
+        self.by_text = dict(by_text)
         self.rows = list(result.reasons)
+        listed = {row.reason for row in self.rows}
+        for reason in self.doc.edits.waived:
+            if str(reason) not in listed:
+                self.by_text[str(reason)] = reason
+                self.rows.append(SimpleNamespace(reason=str(reason), kind=reason.kind, edges=[],
+                                                 assignments_if_waived=None, gain=None,
+                                                 min_rounds_if_waived=None))
         base = numbers.cell_text(result.assignments)
         self.summary.setText(
             f"For {k} rounds: {base} assignments now, fewest rounds {result.min_rounds}. "
@@ -83,9 +94,9 @@ class WhatIfView(QWidget):
             "because of it removed) and the gain. Ranked by gain.")
         self.table.setRowCount(len(self.rows))
         for r, row in enumerate(self.rows):
-            values = (str(row.reason), row.kind, str(len(row.edges)),
+            values = (row.reason, row.kind, str(len(row.edges)),
                       row.assignments_if_waived, row.gain, row.min_rounds_if_waived,
-                      "yes" if row.reason in self.doc.edits.waived else "")
+                      "yes" if self._waived(row.reason) else "")
             for c, value in enumerate(values):
                 text = numbers.cell_text(value) if c in (3, 4) else (
                     "" if value is None else str(value))
@@ -95,13 +106,17 @@ class WhatIfView(QWidget):
                     item.setTextAlignment(Qt.AlignmentFlag.AlignRight
                                           | Qt.AlignmentFlag.AlignVCenter)
                 if c == 0:
-                    item.setToolTip("\n".join(f"{a} – {b}" for a, b in row.edges[:30]))
+                    item.setToolTip("\n".join(f"{e[0]} – {e[1]}" for e in row.edges[:30]))
                 self.table.setItem(r, c, item)
         self._show_state()
 
+    def _waived(self, text: str) -> bool:
+        return self.by_text.get(text) in self.doc.edits.waived
+
     def current_reason(self) -> Any:
+        """The selected row's Reason (None when no row is selected)."""
         rows = self.table.selectionModel().selectedRows()
-        return self.rows[rows[0].row()].reason if rows else None
+        return self.by_text.get(self.rows[rows[0].row()].reason) if rows else None
 
     def _selection(self) -> None:
         reason = self.current_reason()
@@ -142,5 +157,5 @@ class WhatIfView(QWidget):
         for r, row in enumerate(self.rows):
             item = self.table.item(r, len(COLUMNS) - 1)
             if item is not None:
-                item.setText("yes" if row.reason in edits.waived else "")
+                item.setText("yes" if self._waived(row.reason) else "")
         self._selection()

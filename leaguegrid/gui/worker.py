@@ -161,6 +161,8 @@ class Runner(QObject):
         return job
 
     def _next(self) -> None:
+        if self._current is not None:  # the result's handler already started the next job
+            return
         queued, self._queued = self._queued, None
         if queued is not None:
             self._launch(queued)

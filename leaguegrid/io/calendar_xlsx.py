@@ -27,6 +27,7 @@ from pathlib import Path
 from typing import Any
 
 from openpyxl import Workbook
+from openpyxl.cell.cell import ILLEGAL_CHARACTERS_RE
 from openpyxl.styles import Alignment, Font
 from openpyxl.utils import get_column_letter
 from openpyxl.worksheet.worksheet import Worksheet
@@ -136,7 +137,7 @@ def _write_cell(ws: Worksheet, row: int, col: int, value: object) -> int:
     if isinstance(value, int | float):
         cell.value = value
         return len(str(value))
-    text = str(value)
+    text = ILLEGAL_CHARACTERS_RE.sub("", str(value))  # control characters XML cannot hold
     cell.value = text
     cell.data_type = "s"  # never a formula, whatever the text starts with
     if text.startswith(FORMULA_START):

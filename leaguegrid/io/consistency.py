@@ -40,6 +40,13 @@ def check_pins(
             )
 
 
+def _ordered(edges, league: League) -> list[tuple[str, str]]:
+    """Edges with their ends (and the edges themselves) in fixture order."""
+    index = {f.label: i for i, f in enumerate(league.fixtures)}
+    pairs = [tuple(sorted((a, b), key=index.__getitem__)) for a, b in edges]
+    return sorted(pairs, key=lambda p: (index[p[0]], index[p[1]]))
+
+
 class _Groups:
     """Union-find over tied fixtures."""
 
@@ -85,7 +92,7 @@ def check_ties(league: League, graph: nx.Graph, ties: Table | None, report: Repo
             )
         elif rounds:
             group_pin[root] = rounds[0]
-        for a, b in graph.subgraph(labels).edges():
+        for a, b in _ordered(graph.subgraph(labels).edges(), league):
             report.error(
                 f"'{a}' and '{b}' clash ({reasons_text(graph, a, b)}) but the ties on "
                 f"{rows_text(rows[root])} put them in one round",
@@ -111,7 +118,7 @@ def _check_tied_pins(
             return pins[label]
         return group_pin.get(groups.find(label)) if label in groups.parent else None
 
-    for a, b in graph.edges():
+    for a, b in _ordered(graph.edges(), league):
         if a in pins and b in pins:
             continue  # both pinned directly: reported by check_pins
         ra, rb = effective(a), effective(b)

@@ -45,6 +45,7 @@ UID_DOMAIN = "leaguegrid.invalid"
 DEFAULT_GAME_MINUTES = 90
 MAX_LINE_OCTETS = 75
 _FORBIDDEN_IN_FILE_NAME = re.compile(r'[<>:"/\\|?*\x00-\x1f]')
+_CONTROL = re.compile(r"[\x00-\x08\x0b-\x1f\x7f]")  # every control character but tab and LF
 
 
 class IcsError(ExportError):
@@ -52,9 +53,11 @@ class IcsError(ExportError):
 
 
 def escape_text(text: str) -> str:
-    """RFC 5545 TEXT escaping: backslash, semicolon, comma and newlines."""
+    """RFC 5545 TEXT escaping: backslash, semicolon, comma and newlines; other control
+    characters, which TEXT may not hold, become spaces."""
     text = text.replace("\\", "\\\\").replace(";", "\\;").replace(",", "\\,")
-    return text.replace("\r\n", "\\n").replace("\r", "\\n").replace("\n", "\\n")
+    text = _CONTROL.sub(" ", text.replace("\r\n", "\n").replace("\r", "\n"))
+    return text.replace("\n", "\\n")
 
 
 def fold_line(line: str) -> str:

@@ -166,6 +166,14 @@ def test_formula_looking_names_are_text_never_formulas(tmp_path):
         assert sheets and not any(b"<f>" in z.read(n) or b"<f " in z.read(n) for n in sheets)
 
 
+def test_control_characters_are_dropped(tmp_path):
+    league, schedule = make_league()
+    league.fixtures[0].venue = "Marsh\x07 Lane\x1b"
+    wb = openpyxl.load_workbook(written(tmp_path, league, schedule))
+    first = rows_of(wb["Calendar"])
+    assert "Marsh Lane" in {r["Venue"] for r in first}
+
+
 def test_clash_reasons_appear_nowhere(tmp_path):
     league, schedule = make_league()
     out = written(tmp_path, league, schedule)

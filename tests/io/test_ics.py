@@ -9,6 +9,8 @@ import re
 from pathlib import Path
 
 import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
 
 from leaguegrid.io.atomic import InputOverwriteError
 from leaguegrid.io.calendar_xlsx import CAUTION
@@ -281,6 +283,26 @@ def test_escape_and_fold_examples():
     folded = fold_line("D:" + "é" * 80)  # two octets each: never split inside a character
     assert all(len(p.encode()) <= 75 for p in folded.split("\r\n"))
     assert folded.replace("\r\n ", "") == "D:" + "é" * 80
+
+
+def test_control_characters_become_spaces():
+    # RFC 5545 3.3.11: TEXT holds no control characters other than tab
+    assert escape_text("a\x07b\x0bc\td") == "a b c\td"
+
+
+@settings(max_examples=300, deadline=None)
+@given(
+    st.text(
+        alphabet=st.characters(blacklist_categories=("Cc", "Cs")) | st.sampled_from("\n\t,;\\:"),
+        max_size=300,
+    )
+)
+def test_escape_fold_round_trip(text):
+    line = "DESCRIPTION:" + escape_text(text)
+    folded = fold_line(line) + "\r\n"
+    assert all(len(piece.encode()) <= 75 for piece in folded.split("\r\n"))
+    (back,) = unfold(folded.encode())
+    assert unescape(back.partition(":")[2]) == text
 
 
 def test_caution_and_no_clash_reasons(tmp_path):

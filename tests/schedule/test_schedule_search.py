@@ -9,7 +9,7 @@ import threading
 import pytest
 from schedule_helpers import brute, fx, make_league, round_robin, textbook_graph
 
-from leaguegrid.model import Blocked, Settings, Venue
+from leaguegrid.model import Blocked, Settings, Tie, Venue
 from leaguegrid.schedule.check import ScheduleChecker
 from leaguegrid.schedule.constraints import build_model
 from leaguegrid.schedule.rules import check_generator
@@ -114,22 +114,24 @@ def test_several_rules_impossible_each_impossible_alone_are_named():
 
 
 def test_rules_possible_alone_but_not_together_are_named():
-    """Ground Hub (2 pitches) hosts the first three fixtures; Ash must play its two home
-    games at Hub in rounds 1..2 only if balance and capacity bite together."""
-    fixtures = [fx("Ash", "Birch", "Hub"), fx("Cedar", "Daisy", "Hub"),
-                fx("Elm", "Fir", "Hub"), fx("Gorse", "Holly", "Vale")]
+    """Ash must play home, away, home (max home run 1), so its away game at Hub takes round 2,
+    where closed rounds already force Hub's two other fixtures: Hub has only two pitches."""
+    fixtures = [fx("Ash", "Birch", "North"), fx("Ash", "Cedar", "North"),
+                fx("Daisy", "Ash", "Hub"), fx("Elm", "Fir", "Hub"), fx("Gorse", "Holly", "Hub")]
     lg = make_league(fixtures, venues={"Hub": Venue("Hub", pitches=2)},
-                     settings=Settings(round_balance=0))
-    lg.blocked = [Blocked(2, venue="Vale", row=2)]
-    model, out = run(lg, 2)
-    every = brute(lg, textbook_graph(lg), 2)
-    assert not any(check_generator(lg, model.generator, a, 2) == [] for a in every)
+                     settings=Settings(max_home_run=1))
+    lg.blocked = [Blocked(r, team=t, row=2) for t in ("Elm", "Gorse") for r in (1, 3)]
+    model, out = run(lg, 3)
+    every = brute(lg, textbook_graph(lg), 3)
+    assert not any(check_generator(lg, model.generator, a, 3) == [] for a in every)
     for name in model.generator.names:
         alone = model.generator.only(name)
-        assert any(check_generator(lg, alone, a, 2) == [] for a in every)
+        assert any(check_generator(lg, alone, a, 3) == [] for a in every)
     assert out.status == "impossible"
-    assert out.reasons[1:] == [
-        "each rule can hold alone, but not all together: venue capacity, round balance"
+    assert out.reasons == [
+        f"no schedule meets every rule together (the search tried every option, "
+        f"{out.steps} steps)",
+        "each rule can hold alone, but not all together: venue capacity, max home run",
     ]
 
 
@@ -150,12 +152,12 @@ def test_round_balance_impossible_by_division_is_named():
 
 
 def test_round_balance_impossible_when_a_round_cannot_be_filled():
-    lg = make_league([fx("Ash", "Birch"), fx("Cedar", "Daisy"), fx("Elm", "Fir"),
-                      fx("Ash", "Cedar")], settings=Settings(round_balance=1))
-    lg.blocked = [Blocked(2, team=t, row=i) for i, t in enumerate(["Ash", "Cedar", "Elm"], 2)]
-    _, out = run(lg, 2)
+    fixtures = [fx(f"T{2 * i}", f"T{2 * i + 1}", f"Ground {i}") for i in range(6)]
+    lg = make_league(fixtures, settings=Settings(round_balance=1))
+    lg.blocked = [Blocked(3, venue=f"Ground {i}", row=i + 2) for i in range(6)]
+    _, out = run(lg, 3)
     assert out.reasons == [
-        "round balance: round 2 must hold at least 1 fixtures (4 fixtures over 2 rounds, "
+        "round balance: round 3 must hold at least 1 fixtures (6 fixtures over 3 rounds, "
         "difference 1), but only 0 may go there"
     ]
 
@@ -172,10 +174,14 @@ def test_search_respects_pins_ties_blocked_and_return_half():
     lg = make_league(round_robin(SIX, legs=2),
                      settings=Settings(legs=2, return_half=True, max_home_run=2))
     lg.fixtures[0].pin = 2
+    lg.fixtures[1].pin = 5
+    lg.fixtures[1].played = True
+    lg.ties = [Tie("Cedar v Daisy", "Elm v Fir", row=2)]
     lg.blocked = [Blocked(1, team="Elm", row=2)]
-    _, out = run(lg, 10, seed=11)
+    model, out = run(lg, 11, seed=11)
+    assert model.count() > 0
     assert out.status == "found"
-    assert holds(lg, 10, out.assignment)
+    assert holds(lg, 11, out.assignment)
 
 
 def test_same_seed_same_schedule():
