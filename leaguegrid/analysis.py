@@ -51,6 +51,7 @@ class CountReport:
     rows: list[CountRow] = field(default_factory=list)
     complete: bool = True  # False when the budget ran out or the work was cancelled
     cancelled: bool = False
+    notes: list[str] = field(default_factory=list)  # e.g. pins or ties that contradict clashes
 
     @property
     def polynomial_text(self) -> str | None:
@@ -152,6 +153,7 @@ def count_report(
         pinned=constrained,
         min_rounds=None,
         min_rounds_bounds=_bounds(base),
+        notes=list(base.contradictions),
     )
     try:
         found = clock.run(lambda: base.fewest_rounds(clock.hooks("fewest rounds", 0.0, 0.2)))

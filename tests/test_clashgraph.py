@@ -38,8 +38,12 @@ def test_round_robin_clash_graph_is_the_line_graph_of_the_complete_graph():
 
 
 def test_team_on_either_side_and_two_reasons_on_one_edge():
-    league = league_of(Fixture("A v B", "A", "B"), Fixture("B v A", "B", "A"), Fixture("C v A", "C", "A"),
-                       Fixture("D v E", "D", "E"))
+    league = league_of(
+        Fixture("A v B", "A", "B"),
+        Fixture("B v A", "B", "A"),
+        Fixture("C v A", "C", "A"),
+        Fixture("D v E", "D", "E"),
+    )
     assert edges(build_clash_graph(league)) == {
         frozenset({"A v B", "B v A"}): [Reason("team", "A"), Reason("team", "B")],
         frozenset({"A v B", "C v A"}): [Reason("team", "A")],
@@ -49,20 +53,31 @@ def test_team_on_either_side_and_two_reasons_on_one_edge():
 
 def test_node_attributes():
     graph = build_clash_graph(league_of(Fixture("A v B", "A", "B", venue="Oak", division="U9")))
-    assert graph.nodes["A v B"] == {"division": "U9", "venue": "Oak", "pitch": None, "home": "A",
-                                    "away": "B"}
+    assert graph.nodes["A v B"] == {
+        "division": "U9",
+        "venue": "Oak",
+        "pitch": None,
+        "home": "A",
+        "away": "B",
+    }
 
 
 def test_venue_blank_never_clashes_and_case_is_ignored():
-    league = league_of(Fixture("1", venue="Oak Rd"), Fixture("2", venue="oak rd"), Fixture("3"),
-                       Fixture("4"))
+    league = league_of(
+        Fixture("1", venue="Oak Rd"), Fixture("2", venue="oak rd"), Fixture("3"), Fixture("4")
+    )
     assert edges(build_clash_graph(league)) == {frozenset({"1", "2"}): [Reason("venue", "Oak Rd")]}
 
 
 def test_pitch_keys():
-    league = league_of(Fixture("p1", venue="Oak", pitch="1"), Fixture("p1b", venue="Oak", pitch="1"),
-                       Fixture("p2", venue="Oak", pitch="2"), Fixture("court", venue="Hall", pitch="Court A"),
-                       Fixture("court2", venue="Hall", pitch="court a"), Fixture("whole", venue="Oak"))
+    league = league_of(
+        Fixture("p1", venue="Oak", pitch="1"),
+        Fixture("p1b", venue="Oak", pitch="1"),
+        Fixture("p2", venue="Oak", pitch="2"),
+        Fixture("court", venue="Hall", pitch="Court A"),
+        Fixture("court2", venue="Hall", pitch="court a"),
+        Fixture("whole", venue="Oak"),
+    )
     assert edges(build_clash_graph(league)) == {
         frozenset({"p1", "p1b"}): [Reason("venue", "Oak, pitch 1")],
         frozenset({"court", "court2"}): [Reason("venue", "Hall, Court A")],
@@ -75,43 +90,67 @@ def test_pitch_keys():
 
 def test_venue_with_several_pitches_and_no_pitch_column_has_no_venue_edges():
     venues = {"Oak": Venue("Oak", pitches=2), "Elm": Venue("Elm", pitches=1)}
-    league = league_of(Fixture("a", venue="Oak"), Fixture("b", venue="oak"), Fixture("c", venue="Elm"),
-                       Fixture("d", venue="Elm"), venues=venues)
+    league = league_of(
+        Fixture("a", venue="Oak"),
+        Fixture("b", venue="oak"),
+        Fixture("c", venue="Elm"),
+        Fixture("d", venue="Elm"),
+        venues=venues,
+    )
     assert edges(build_clash_graph(league)) == {frozenset({"c", "d"}): [Reason("venue", "Elm")]}
 
 
 def test_shared_settings_choose_the_rules():
-    fixtures = [Fixture("A v B", "A", "B", venue="Oak", shared={"Referee": ("Ann", "Bo")}),
-                Fixture("A v C", "A", "C", venue="Oak", shared={"Referee": ("bo",)}),
-                Fixture("D v E", "D", "E", shared={"Referee": ("Cy",)})]
+    fixtures = [
+        Fixture("A v B", "A", "B", venue="Oak", shared={"Referee": ("Ann", "Bo")}),
+        Fixture("A v C", "A", "C", venue="Oak", shared={"Referee": ("bo",)}),
+        Fixture("D v E", "D", "E", shared={"Referee": ("Cy",)}),
+    ]
     graph = build_clash_graph(league_of(*fixtures, settings=Settings(shared=("Venue", "Referee"))))
     assert edges(graph) == {
-        frozenset({"A v B", "A v C"}): [Reason("venue", "Oak"), Reason("shared", "Referee=Bo")]}
+        frozenset({"A v B", "A v C"}): [Reason("venue", "Oak"), Reason("shared", "Referee=Bo")]
+    }
     graph = build_clash_graph(league_of(*fixtures))
     assert edges(graph)[frozenset({"A v B", "A v C"})] == [
-        Reason("team", "A"), Reason("venue", "Oak"), Reason("shared", "Referee=Bo")]
+        Reason("team", "A"),
+        Reason("venue", "Oak"),
+        Reason("shared", "Referee=Bo"),
+    ]
 
 
 def test_clash_rows_and_splits_deduplicated_with_their_rows():
     clash = ClashRow("Ann", "Bo", "coach", 4, [("x", "y"), ("x", "z")])
     again = ClashRow("Ann", "Bo", "coach", 5, [("x", "y")])
     blank = ClashRow("x", "z", "", 6, [("z", "x")])
-    league = league_of(Fixture("x"), Fixture("y"), Fixture("z"), clash_rows=[clash, again, blank],
-                       splits=[Split("y", "x", "county", 2), Split("y", "x", "county", 2)])
+    league = league_of(
+        Fixture("x"),
+        Fixture("y"),
+        Fixture("z"),
+        clash_rows=[clash, again, blank],
+        splits=[Split("y", "x", "county", 2), Split("y", "x", "county", 2)],
+    )
     graph = build_clash_graph(league)
     assert edges(graph) == {
-        frozenset({"x", "y"}): [Reason("clash", "coach", 4), Reason("clash", "coach", 5),
-                                Reason("split", "county", 2)],
+        frozenset({"x", "y"}): [
+            Reason("clash", "coach", 4),
+            Reason("clash", "coach", 5),
+            Reason("split", "county", 2),
+        ],
         frozenset({"x", "z"}): [Reason("clash", "coach", 4), Reason("clash", "no reason given", 6)],
     }
     assert [describe(r) for r in edge_reasons(graph, "x", "z")] == [
-        "Clashes row 4: coach", "Clashes row 6: no reason given"]
+        "Clashes row 4: coach",
+        "Clashes row 6: no reason given",
+    ]
     assert edge_reasons(graph, "y", "z") == []
 
 
 def test_reason_helpers():
-    league = league_of(Fixture("A v B", "A", "B", venue="Oak"), Fixture("A v C", "A", "C"),
-                       Fixture("D v E", "D", "E", venue="Oak"))
+    league = league_of(
+        Fixture("A v B", "A", "B", venue="Oak"),
+        Fixture("A v C", "A", "C"),
+        Fixture("D v E", "D", "E", venue="Oak"),
+    )
     graph = build_clash_graph(league)
     assert reason_edges(graph) == {
         Reason("team", "A"): {frozenset({"A v B", "A v C"})},
@@ -124,10 +163,14 @@ def test_reason_helpers():
 
 
 def test_sole_reason_edges_skip_edges_with_two_reasons():
-    league = league_of(Fixture("A v B", "A", "B"), Fixture("B v A", "B", "A"), Fixture("A v C", "A", "C"))
+    league = league_of(
+        Fixture("A v B", "A", "B"), Fixture("B v A", "B", "A"), Fixture("A v C", "A", "C")
+    )
     sole = sole_reason_edges(build_clash_graph(league))
-    assert sole == {Reason("team", "A"): {frozenset({"A v B", "A v C"}), frozenset({"B v A", "A v C"})},
-                    Reason("team", "B"): set()}
+    assert sole == {
+        Reason("team", "A"): {frozenset({"A v B", "A v C"}), frozenset({"B v A", "A v C"})},
+        Reason("team", "B"): set(),
+    }
 
 
 def test_every_pair_sharing_a_team_is_an_edge():

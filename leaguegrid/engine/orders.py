@@ -1,55 +1,121 @@
-"""Vertex orders for the frontier programme: cheap greedy heuristics, several tried."""
+"""Vertex orders for the frontier programme.
+
+The programme's cost is set by its largest state tables, which depend on the order far
+more than on the graph's size. Orders are grown greedily (the next vertex is the one that
+keeps the frontier, the placed fixtures still clashing with unplaced ones, smallest), with
+random tie-breaking and random starts; each order is scored by the sum over steps of the
+number of partitions of its frontier (Bell numbers; at a fixed k, partitions into at most k
+classes), which ranks orders well against measured table sizes, and the best is kept.
+The number of tries grows with the expected cost, so small graphs spend almost nothing.
+"""
 
 from __future__ import annotations
 
 import random
+import time
+from functools import lru_cache
 
+from .falling import stirling2_rows
 from .graph import Graph, bits
 
 
+@lru_cache(maxsize=4096)
+def partitions_bound(width: int, k: int | None) -> int:
+    """Partitions of `width` items into at most k classes (all partitions when k is None)."""
+    row = stirling2_rows(width)[width]
+    return sum(row if k is None else row[: k + 1])
+
+
 def frontier_sizes(g: Graph, order: list[int]) -> list[int]:
-    """Frontier size after each step: processed vertices that still have unprocessed neighbours."""
-    done = 0
+    """Frontier size after each step: placed vertices that still have unplaced neighbours."""
+    unplaced_deg = [a.bit_count() for a in g.adj]
+    size = 0
     out = []
-    full = (1 << g.n) - 1
+    placed = 0
     for v in order:
-        done |= 1 << v
-        rest = full & ~done
-        out.append(sum(1 for u in bits(done) if g.adj[u] & rest))
+        leaving = sum(1 for u in bits(g.adj[v] & placed) if unplaced_deg[u] == 1)
+        for u in bits(g.adj[v]):
+            unplaced_deg[u] -= 1
+        size += (1 if unplaced_deg[v] > 0 else 0) - leaving
+        placed |= 1 << v
+        out.append(size)
     return out
 
 
-def greedy_order(g: Graph, rng: random.Random | None = None, start: int | None = None) -> list[int]:
-    """Grow the order one vertex at a time, keeping the frontier small.
+def score(widths: list[int], k: int | None) -> int:
+    """The order's score: sum over steps of the partition bound of the frontier."""
+    return sum(partitions_bound(w, k) for w in widths)
 
-    Picks the vertex whose addition changes the frontier least; ties go to the vertex with
-    most processed neighbours, then (randomly when `rng` is given) among the rest.
+
+def greedy_order(
+    g: Graph, rng: random.Random | None = None, start: int | None = None
+) -> list[int]:
+    """An order grown one vertex at a time, keeping the frontier small.
+
+    Among the unplaced neighbours of placed vertices, picks the one whose placement changes
+    the frontier least, then the one with most placed neighbours; remaining ties are broken
+    by index, or at random when `rng` is given. A new component starts at `start`, or at a
+    vertex of least degree (a random one when `rng` is given).
     """
     n = g.n
     adj = g.adj
-    unproc_deg = [a.bit_count() for a in adj]  # unprocessed neighbours of each vertex
-    processed = 0
+    unplaced_deg = [a.bit_count() for a in adj]
+    placed = 0
+    boundary = 0  # unplaced vertices with a placed neighbour
     order: list[int] = []
-    candidates = set(range(n))
-    first = start
-    while candidates:
-        if first is not None:
-            v = first
-            first = None
-        else:
+    unplaced = (1 << n) - 1
+    while unplaced:
+        if boundary:
             best_key = None
             v = -1
-            for c in candidates:
-                nb_done = adj[c] & processed
-                leaving = sum(1 for u in bits(nb_done) if unproc_deg[u] == 1)
-                entering = 1 if unproc_deg[c] > 0 else 0
+            for c in bits(boundary):
+                nb_done = adj[c] & placed
+                leaving = 0
+                for u in bits(nb_done):
+                    if unplaced_deg[u] == 1:
+                        leaving += 1
+                entering = 1 if unplaced_deg[c] > 0 else 0
                 key = (entering - leaving, -nb_done.bit_count(), rng.random() if rng else c)
                 if best_key is None or key < best_key:
                     best_key = key
                     v = c
-        candidates.discard(v)
+        elif start is not None and unplaced >> start & 1:
+            v = start
+        else:
+            left = list(bits(unplaced))
+            low = min(adj[u].bit_count() for u in left)
+            ends = [u for u in left if adj[u].bit_count() == low]
+            v = rng.choice(ends) if rng else ends[0]
         order.append(v)
-        processed |= 1 << v
+        vb = 1 << v
+        placed |= vb
+        unplaced &= ~vb
+        boundary = (boundary | adj[v]) & unplaced
         for u in bits(adj[v]):
-            unproc_deg[u] -= 1
+            unplaced_deg[u] -= 1
     return order
+
+
+def best_order(
+    g: Graph, k: int | None = None, seed: int = 0, max_tries: int = 400, seconds: float = 1.0
+) -> list[int]:
+    """The best-scoring of many greedy orders (deterministic for a given seed and effort).
+
+    The search time grows with the logarithm of the best score (a proxy for the work the
+    programme will do), from nothing on trivial graphs to `seconds` on the hardest.
+    """
+    rng = random.Random(seed)
+    start = time.perf_counter()
+    best = greedy_order(g)
+    best_score = score(frontier_sizes(g, best), k)
+    tries = 1
+    while tries < max_tries:
+        allowed = min(seconds, 0.04 * max(0, best_score.bit_length() - 12))
+        if time.perf_counter() - start > allowed:
+            break
+        cand = greedy_order(g, rng)
+        s = score(frontier_sizes(g, cand), k)
+        if s < best_score:
+            best, best_score = cand, s
+        tries += 1
+    return best

@@ -8,7 +8,7 @@ from flint import fmpz_poly
 from .frontier import count_at, count_polynomial
 from .graph import Graph, components
 from .hooks import Ticker
-from .orders import greedy_order
+from .orders import best_order
 
 X = fmpz_poly([0, 1])
 
@@ -48,7 +48,7 @@ def polynomial(g: Graph, ticker: Ticker) -> fmpz_poly:
 
 def piece_polynomial(g: Graph, ticker: Ticker) -> fmpz_poly:
     """P(g, x) of one connected piece."""
-    return count_polynomial(g, greedy_order(g), ticker)
+    return count_polynomial(g, best_order(g), ticker)
 
 
 def value(g: Graph, k: int, ticker: Ticker) -> int:
@@ -71,4 +71,4 @@ def value(g: Graph, k: int, ticker: Ticker) -> int:
 
 def piece_value(g: Graph, k: int, ticker: Ticker) -> int:
     """P(g, k) of one connected piece."""
-    return count_at(g, greedy_order(g), k, ticker)
+    return count_at(g, best_order(g, k), k, ticker)

@@ -140,15 +140,20 @@ def count(league: League, graph: nx.Graph, progress: Progress, cancel: threading
           rounds: list[int] | None = None, budget: float | None = COUNT_BUDGET) -> Any:
     """The counts table (analysis.CountReport) of a league with the window's edits: pins, ties,
     splits and blocked rounds counted exactly; what the budget (seconds) cuts short is missing
-    or a labelled estimate. The report gets `notes`: contradictions that make every count 0."""
+    or a labelled estimate. The report's `notes` name contradictions that make every count 0."""
     from leaguegrid import analysis
-    from leaguegrid.schedule.constraints import build_model
 
-    report = analysis.count_report(league, graph, rounds=rounds, budget=budget,
-                                   progress=progress, cancel=cancel)
-    top = max([len(league.fixtures), 1] + [f.pin for f in league.fixtures if f.pin])
-    report.notes = list(build_model(league, graph, top).contradictions)
-    return report
+    return analysis.count_report(league, graph, rounds=rounds, budget=budget,
+                                 progress=progress, cancel=cancel)
+
+
+def count_with_estimate(league: League, graph: nx.Graph, progress: Progress,
+                        cancel: threading.Event, budget: float | None = COUNT_BUDGET) -> Any:
+    """The counts table, saying first how long the work may take when that is long."""
+    seconds = estimate_seconds(graph)
+    if seconds is not None and seconds > LONG_WORK_SECONDS:
+        progress(0.0, f"Counting; this may take about {seconds:.0f} s (Esc cancels)")
+    return count(league, graph, progress, cancel, budget=budget)
 
 
 def polynomial_of_graph(graph: nx.Graph, progress: Progress, cancel: threading.Event) -> Any:

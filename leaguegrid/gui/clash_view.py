@@ -130,8 +130,14 @@ class ClashGraphView(QWidget):
         self._node_set: frozenset = frozenset()
         self.scene.selectionChanged.connect(self._scene_picked)
         doc.selectionChanged.connect(self._highlight)
-        doc.scheduleChanged.connect(lambda: self.colour_by(doc.schedule))
-        doc.graphChanged.connect(lambda: self.set_graph(doc.graph))
+        doc.scheduleChanged.connect(self._schedule_changed)
+        doc.graphChanged.connect(self._graph_changed)
+
+    def _schedule_changed(self) -> None:
+        self.colour_by(self.doc.schedule)
+
+    def _graph_changed(self) -> None:
+        self.set_graph(self.doc.graph)
 
     def set_graph(self, graph: nx.Graph | None) -> None:
         """Draw a graph; positions are kept when the fixtures are the same as before."""

@@ -71,14 +71,14 @@ class CountPlot(QWidget):
                              "No counts yet" if not self.points else "Nothing to plot")
             return
         xs = [d[0] for d in dots] + ([self.fewest] if self.fewest is not None else [])
-        x0, x1 = min(xs), max(xs)
-        if x0 == x1:
-            x0, x1 = x0 - 1, x1 + 1
+        x0, x1 = min(xs) - 0.4, max(xs) + 0.4
         ys = [d[1] for d in dots] + [r[1] for d in dots if (r := d[2])] + \
              [r[0] for d in dots if (r := d[2])]
         y0, y1 = math.floor(min(ys)), math.ceil(max(ys))
-        if y0 == y1:
-            y1 = y0 + 1
+        if min(ys) - y0 < 0.2:  # keep the lowest dot off the frame
+            y0 -= 1
+        if y1 - max(ys) < 0.2:
+            y1 += 1
 
         def at(x: float, y: float) -> QPointF:
             px = area.left() + (x - x0) / (x1 - x0) * area.width()
@@ -89,7 +89,7 @@ class CountPlot(QWidget):
         self._fewest_marker(painter, area, at, y0)
         self._series(painter, dots, at)
 
-    def _axes(self, painter: QPainter, area: QRectF, x0: int, x1: int, y0: int, y1: int,
+    def _axes(self, painter: QPainter, area: QRectF, x0: float, x1: float, y0: int, y1: int,
               at) -> None:
         pal = self.palette()
         grid = QPen(pal.color(QPalette.ColorRole.Mid), 0, Qt.PenStyle.DotLine)
@@ -105,7 +105,7 @@ class CountPlot(QWidget):
             painter.drawText(QRectF(0, p.y() - fm.height() / 2, area.left() - 6, fm.height()),
                              Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter, label)
         xstep = max(1, math.ceil((x1 - x0) / 12))
-        for k in range(x0, x1 + 1, xstep):
+        for k in range(math.ceil(x0), math.floor(x1) + 1, xstep):
             p = at(k, y0)
             painter.setPen(axis)
             painter.drawLine(QPointF(p.x(), area.bottom()), QPointF(p.x(), area.bottom() + 4))

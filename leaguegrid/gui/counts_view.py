@@ -148,7 +148,7 @@ class CountsView(QWidget):
         elif not report.complete:
             parts.append("Not everything finished in time: what is missing shows as "
                          f"“{numbers.NOT_COMPUTED}” or as a labelled estimate.")
-        parts += list(getattr(report, "notes", []))
+        parts += list(report.notes)
         if rules_note:
             parts.append(rules_note)
         return " ".join(parts)

@@ -49,7 +49,7 @@ class FixturesView(QWidget):
         layout.addWidget(self.table)
         doc.selectionChanged.connect(self._show_selection)
         doc.scheduleChanged.connect(self.refresh)
-        doc.graphChanged.connect(lambda: self._show_selection(doc.selected))
+        doc.graphChanged.connect(self._graph_changed)
 
     def refresh(self) -> None:
         league = self.doc.league
@@ -79,6 +79,9 @@ class FixturesView(QWidget):
                         item.setText(f"{f.label}  (tied)")
                 self.table.setItem(r, c, item)
         self.table.blockSignals(False)
+        self._show_selection(self.doc.selected)
+
+    def _graph_changed(self) -> None:
         self._show_selection(self.doc.selected)
 
     def _label_at(self, row: int) -> str | None:

@@ -59,6 +59,7 @@ class ImportView(QWidget):
         split.addWidget(box)
         split.setStretchFactor(0, 3)
         split.setStretchFactor(1, 1)
+        split.setSizes([480, 160])
         layout = QVBoxLayout(self)
         layout.addWidget(self.heading)
         layout.addWidget(split, 1)

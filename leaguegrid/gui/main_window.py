@@ -25,7 +25,7 @@ from PySide6.QtWidgets import (
 )
 
 from leaguegrid import __version__
-from leaguegrid.gui import bridge, commands, icons, project
+from leaguegrid.gui import bridge, commands, icons, procworker, project
 from leaguegrid.gui.clash_view import ClashGraphView
 from leaguegrid.gui.counts_view import CountsView
 from leaguegrid.gui.document import LeagueDocument
@@ -78,6 +78,8 @@ class MainWindow(QMainWindow):
         self._restore_state()
         self._update_title()
         self._update_enabled()
+        if self._engine_in_process():
+            procworker.shared_worker().start()  # it imports while the user looks around
 
     # construction -----------------------------------------------------------------------
     def _build_views(self) -> None:
@@ -165,6 +167,9 @@ class MainWindow(QMainWindow):
         self.act_best = self._action("&Best of many…", self.best_of_dialog,
                                      QKeySequence("Ctrl+B"),
                                      "Draw many schedules and keep the best-scoring one")
+        self.act_budget = self._action("&Time allowed for counting…", self.budget_dialog, None,
+                                       "Seconds a count may take before what is left is "
+                                       "shown as estimates")
         self.act_whatif = self._action("Rank clash &reasons", self.compute_whatif,
                                        QKeySequence("Ctrl+I"),
                                        "How many more schedules each waived clash reason gives")
@@ -203,8 +208,8 @@ class MainWindow(QMainWindow):
                     self.act_tie, self.act_add_clash):
             edit.addSeparator() if act is None else edit.addAction(act)
         league = bar.addMenu("&League")
-        for act in (self.act_count, self.act_cancel, None, self.act_draw, self.act_redraw,
-                    self.act_best, None, self.act_whatif):
+        for act in (self.act_count, self.act_cancel, self.act_budget, None, self.act_draw,
+                    self.act_redraw, self.act_best, None, self.act_whatif):
             league.addSeparator() if act is None else league.addAction(act)
         view = bar.addMenu("&View")
         for act in self.tab_actions:
@@ -254,10 +259,10 @@ class MainWindow(QMainWindow):
         self.runner.busyChanged.connect(self._busy)
         self.runner.progressed.connect(self._progress)
         self.runner.failed.connect(self._failed)
-        self.runner.cancelled.connect(lambda name: self.stage_label.setText(f"{name}: cancelled."))
+        self.runner.cancelled.connect(self._cancelled)
         self.doc.edited.connect(self._edited)
         self.doc.loaded.connect(self._update_title)
-        self.doc.undo.cleanChanged.connect(lambda _c: self._update_title())
+        self.doc.undo.cleanChanged.connect(self._clean_changed)
         self.doc.scheduleChanged.connect(self._update_enabled)
         self.counts_view.roundsChosen.connect(self._rounds_from_table)
         self.schedule_view.moveRequested.connect(self.move_fixture)
@@ -342,6 +347,12 @@ class MainWindow(QMainWindow):
             self.progress.setRange(0, 1000)
             self.progress.setValue(int(1000 * min(fraction, 1.0)))
         self.stage_label.setText(stage)
+
+    def _cancelled(self, name: str) -> None:
+        self.stage_label.setText(f"{name}: cancelled.")
+
+    def _clean_changed(self, _clean: bool) -> None:
+        self._update_title()
 
     def _failed(self, name: str, message: str) -> None:
         self.last_error = f"{name}: {message}"
@@ -514,13 +525,26 @@ class MainWindow(QMainWindow):
         self.graph = graph
         budget = float(self.settings.value("countBudget", bridge.COUNT_BUDGET))
 
-        def work(progress, cancel):
-            seconds = bridge.estimate_seconds(graph)
-            if seconds is not None and seconds > bridge.LONG_WORK_SECONDS:
-                progress(0.0, f"Counting; this may take about {seconds:.0f} s (Esc cancels)")
-            return bridge.count(league, graph, progress, cancel, budget=budget)
-
+        work = self._job_fn(bridge.count_with_estimate, league, graph, budget=budget)
         self.runner.start(Job("Counting", work, self._counts_done))
+
+    def budget_dialog(self) -> None:
+        now = float(self.settings.value("countBudget", bridge.COUNT_BUDGET))
+        seconds, ok = QInputDialog.getInt(
+            self, "Time allowed for counting",
+            "Seconds a count may take (what is not finished by then is shown as a labelled "
+            "estimate or as not computed):", int(now), 1, 24 * 3600)
+        if ok:
+            self.settings.setValue("countBudget", seconds)
+
+    def _engine_in_process(self) -> bool:
+        return self.settings.value("engineProcess", "true") in (True, "true", "1", 1)
+
+    def _job_fn(self, target, *args, **kwargs):
+        """Engine work as a Runner job: in the engine process (the default) or in a thread."""
+        if self._engine_in_process():
+            return procworker.remote(target, *args, **kwargs)
+        return lambda progress, cancel: target(*args, progress, cancel, **kwargs)
 
     def _counts_done(self, report: Any) -> None:
         self.report = report
@@ -559,8 +583,7 @@ class MainWindow(QMainWindow):
         seed = random.SystemRandom().randrange(1, 2**31) if seed in (None, False) else seed
         league, graph = self.working()
 
-        def work(progress, cancel):
-            return bridge.draw(league, graph, k, seed, draws, progress, cancel)
+        work = self._job_fn(bridge.draw, league, graph, k, seed, draws)
 
         label = "Drawing a schedule" if draws == 1 else f"Drawing {draws} schedules"
         self.runner.start(Job(label, work, self._schedule_done))
@@ -665,8 +688,7 @@ class MainWindow(QMainWindow):
         k = self.rounds_box.value()
         league, graph = self.working()
 
-        def work(progress, cancel):
-            return bridge.whatif(league, graph, k, progress, cancel)
+        work = self._job_fn(bridge.whatif, league, graph, k)
 
         def done(out: Any) -> None:
             self.whatif_view.show_result(k, *out)

@@ -107,9 +107,12 @@ class ScheduleView(QWidget):
         layout.addWidget(self.info)
         layout.addWidget(self.status)
         layout.addWidget(self.grid, 1)
-        doc.selectionChanged.connect(lambda _l: self._paint_chips())
+        doc.selectionChanged.connect(self._selection_changed)
         doc.scheduleChanged.connect(self.refresh)
         doc.loaded.connect(self.refresh)
+
+    def _selection_changed(self, _label: object) -> None:
+        self._paint_chips()
 
     @staticmethod
     def venue_key(fixture: Any) -> str:

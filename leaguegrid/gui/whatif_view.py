@@ -38,6 +38,7 @@ class WhatIfView(QWidget):
         self.doc = doc
         self.rows: list[Any] = []
         self.by_text: dict[str, Any] = {}
+        self.ranked_with = ""
         self.summary = QLabel("Rank the clash reasons (Ctrl+I) to see which ones cost the most "
                               "schedules. Waiving or adding a clash acts on a copy of the league: "
                               "the workbook is never changed, and Undo takes it back.")
@@ -79,6 +80,7 @@ class WhatIfView(QWidget):
         """Fill the table from the schedules' what-if result for K rounds; `by_text` maps each
         reason's text to its Reason. Reasons waived now are listed last, to restore them."""
         self.by_text = dict(by_text)
+        self.ranked_with = self._edits_key()
         self.rows = list(result.reasons)
         listed = {row.reason for row in self.rows}
         for reason in self.doc.edits.waived:
@@ -109,6 +111,10 @@ class WhatIfView(QWidget):
                     item.setToolTip("\n".join(f"{e[0]} – {e[1]}" for e in row.edges[:30]))
                 self.table.setItem(r, c, item)
         self._show_state()
+
+    def _edits_key(self) -> str:
+        edits = self.doc.edits
+        return repr((sorted(edits.pins.items()), edits.ties, edits.waived, edits.added))
 
     def _waived(self, text: str) -> bool:
         return self.by_text.get(text) in self.doc.edits.waived
@@ -152,6 +158,9 @@ class WhatIfView(QWidget):
         if edits.added:
             parts.append("Added clashes: " + "; ".join(f"{a} – {b}" for a, b in edits.added)
                          + ".")
+        if self.rows and self.ranked_with != self._edits_key():
+            parts.append("The ranking above was made before the latest change: rank again "
+                         "(Ctrl+I) to update it.")
         self.state.setText(" ".join(parts) + (" The counts include these changes; the "
                                               "workbook is unchanged." if parts else ""))
         for r, row in enumerate(self.rows):

@@ -68,7 +68,8 @@ class _Thread(QThread):
 
 def is_cancellation(exc: BaseException) -> bool:
     """True for our JobCancelled and for the engine's Cancelled (matched by name: no import)."""
-    return isinstance(exc, JobCancelled) or type(exc).__name__ == "Cancelled"
+    return isinstance(exc, JobCancelled) or type(exc).__name__ in ("Cancelled",
+                                                                   "RemoteCancelled")
 
 
 class Runner(QObject):

@@ -35,14 +35,15 @@ class Table:
     header_row: int
     columns: dict[str, Column]
     rows: list[Row] = field(default_factory=list)
+    standard: dict[str, str] = field(default_factory=dict)  # key -> standard column name
 
     def has(self, key: str) -> bool:
         return key in self.columns
 
     def header(self, key: str, default: str | None = None) -> str:
-        """The column's header as written, or `default` (the standard name) when it is absent."""
+        """The column's header as written, or its standard name when the sheet lacks it."""
         column = self.columns.get(key)
-        return column.header if column else (default or key)
+        return column.header if column else (default or self.standard.get(key, key))
 
     def raw(self, row: Row, key: str) -> object:
         return row.values.get(key)
@@ -56,6 +57,11 @@ class Table:
             return Place(self.sheet, self.header_row, self.header(key) if key else None)
         value = cell_text(row.values.get(key)) if key else None
         return Place(self.sheet, row.number, self.header(key) if key else None, value)
+
+    @property
+    def noun(self) -> str:
+        """'the sheet', or 'the file' for a CSV file."""
+        return "the sheet" if self.sheet else "the file"
 
     def sheet_place(self) -> Place:
         return Place(self.sheet, self.header_row)
@@ -102,7 +108,7 @@ def make_table(
         by_index[index] = column
         if key not in known and not key.startswith("~"):
             _warn_typo(column, header_row, label, report, known, notes_kept)
-    table = Table(label, header_row, columns)
+    table = Table(label, header_row, columns, standard=known)
     for number, cells in raw.rows[1:]:
         values = {by_index[i].key: v for i, v in cells.items() if i in by_index}
         if values:
@@ -151,6 +157,6 @@ def require(table: Table, key: str, display: str, report: Report) -> bool:
     else:
         hint = f" (columns found: {', '.join(headers)})" if headers else ""
     report.error(
-        f"the sheet has no {display} column{hint}", Place(table.sheet, table.header_row, display)
+        f"{table.noun} has no {display} column{hint}", Place(table.sheet, table.header_row, display)
     )
     return False

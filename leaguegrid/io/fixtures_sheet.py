@@ -32,13 +32,22 @@ STANDARD_SHARED = {"home", "away", "venue"}
 
 @dataclass
 class TeamsRead:
+    """What the Teams sheet gave: its teams in order, their rows, and where they were."""
+
     order: list[str] = field(default_factory=list)  # canonical names in sheet order
+    sheet: str = "Teams"  # the sheet's name as written
+    team_header: str = "Team"
+    division_header: str = "Division"
     rows: dict[str, int] = field(default_factory=dict)  # canonical name -> Teams row
 
 
 def read_teams(table: Table, ctx: ReadContext) -> TeamsRead:
     """Teams with their venue (home ground), division and club."""
-    out = TeamsRead()
+    out = TeamsRead(
+        sheet=table.sheet or "Teams",
+        team_header=table.header("team"),
+        division_header=table.header("division"),
+    )
     if not require(table, "team", "Team", ctx.report):
         return out
     for row in table.rows:
@@ -77,13 +86,20 @@ def generate_fixtures(teams: TeamsRead, ctx: ReadContext) -> list[Fixture]:
         if len(members) < 2:
             ctx.report.warn(
                 "the division has only one team, so it has no fixtures",
-                Place("Teams", teams.rows[members[0]], "Division", division),
+                Place(teams.sheet, teams.rows[members[0]], teams.division_header, division),
             )
         for home, away in round_robin(members):
             first.append(_generated(home, away, division, 1, ctx))
     fixtures = list(first)
     if ctx.settings.legs == 2:
         fixtures += [_generated(f.away or "", f.home or "", f.division, 2, ctx) for f in first]
+    taken: set[str] = set()
+    for fixture in fixtures:  # team names holding " v " could make two labels alike
+        base, n = fixture.label, 1
+        while name_key(fixture.label) in taken:
+            n += 1
+            fixture.label = f"{base} ({n})"
+        taken.add(name_key(fixture.label))
     return fixtures
 
 
@@ -151,7 +167,7 @@ def _columns_ok(table: Table, ctx: ReadContext) -> bool:
         return True
     if not (table.has("home") or table.has("away")):
         ctx.report.error(
-            "the sheet has no Fixture column, nor Home and Away columns",
+            f"{table.noun} has no Fixture column, nor Home and Away columns",
             table.sheet_place(),
         )
         return False
@@ -169,11 +185,11 @@ def _read_row(table: Table, row: Row, ctx: ReadContext) -> _Draft | None:
             missing = "home"
         report.error("the row needs a Fixture label or both Home and Away", table.at(row, missing))
         return None
-    home = ctx.add_team(home_text, table.at(row, "home")) if home_text else None
-    away = ctx.add_team(away_text, table.at(row, "away")) if away_text else None
-    if home and home == away:
+    if home_text and away_text and name_key(home_text) == name_key(away_text):
         report.error("Home and Away are the same team", table.at(row, "away"))
         return None
+    home = ctx.add_team(home_text, table.at(row, "home")) if home_text else None
+    away = ctx.add_team(away_text, table.at(row, "away")) if away_text else None
     fixture = Fixture(label or "", home=home, away=away, row=row.number)
     if division := table.text(row, "division"):
         place = table.at(row, "division")

@@ -144,7 +144,9 @@ def _locate_sheets(book: RawBook, report: Report) -> dict[str, str]:
     for name in book.sheet_names:
         key = name_key(name)
         if key in SHEETS:
-            if key in found:
+            if name not in book.sheets:
+                report.error("the sheet holds a chart, not rows", Place(name))
+            elif key in found:
                 report.error(
                     f"two sheets are named {SHEETS[key]} ('{found[key]}' and '{name}'); "
                     "only the first is read",
@@ -169,28 +171,8 @@ def _build(
 ) -> League | None:
     """The League from the located tables, sheet by sheet in dependency order."""
     ctx = ReadContext(report)
-    settings_table = _optional(tables, found, "settings", report)
-    if settings_table is not None:
-        read = read_settings(settings_table, report)
-        ctx.settings, ctx.shared_place = read.settings, read.shared_place
-        ctx.legs_place = read.legs_place
-    if extra_shared:
-        ctx.settings.shared = tuple(dict.fromkeys([*ctx.settings.shared, *extra_shared]))
-    rounds_fixed = "rounds" in found
-    ctx.lookup = RoundLookup(
-        start=ctx.settings.start_date,
-        every=ctx.settings.every_days,
-        skip=ctx.settings.skip,
-        fixed=rounds_fixed,
-    )
-    if rounds_fixed:
-        rounds_table = tables["rounds"]
-        if rounds_table is None:
-            report.error(
-                "the sheet is empty: list the rounds, or delete the sheet", Place(found["rounds"])
-            )
-        else:
-            ctx.lookup.rounds = read_rounds(rounds_table, report)
+    _settings_and_rounds(ctx, tables, found, extra_shared)
+    rounds_fixed = ctx.lookup.fixed
     if (venues := _optional(tables, found, "venues", report)) is not None:
         read_venues(venues, ctx)
     fixtures_table, teams_table = _fixture_source(tables, found, kind, report)
@@ -225,6 +207,36 @@ def _build(
             "the league has no fixtures", Place(found.get("fixtures") or found.get("teams"))
         )
     return league
+
+
+def _settings_and_rounds(
+    ctx: ReadContext,
+    tables: dict[str, Table | None],
+    found: dict[str, str],
+    extra_shared: list[str],
+) -> None:
+    """Settings first (every later sheet depends on them), then where rounds fall."""
+    report = ctx.report
+    settings_table = _optional(tables, found, "settings", report)
+    if settings_table is not None:
+        read = read_settings(settings_table, report)
+        ctx.settings, ctx.shared_place = read.settings, read.shared_place
+        ctx.legs_place = read.legs_place
+    if extra_shared:
+        ctx.settings.shared = tuple(dict.fromkeys([*ctx.settings.shared, *extra_shared]))
+    s = ctx.settings
+    ctx.lookup = RoundLookup(
+        start=s.start_date, every=s.every_days, skip=s.skip, fixed="rounds" in found
+    )
+    if "rounds" not in found:
+        return
+    rounds_table = tables["rounds"]
+    if rounds_table is None:
+        report.error(
+            "the sheet is empty: list the rounds, or delete the sheet", Place(found["rounds"])
+        )
+    else:
+        ctx.lookup.rounds = read_rounds(rounds_table, report)
 
 
 def _optional(
@@ -262,7 +274,7 @@ def _fixture_source(
             return None, None
         else:
             report.error(
-                "the sheet has a header row but no fixtures",
+                f"{fixtures.noun} has a header row but no fixtures",
                 Place(where.sheet, fixtures.header_row),
             )
             return None, None
@@ -275,8 +287,7 @@ def _fixture_source(
         return None, teams
     if "teams" not in found:
         report.error(
-            "the workbook has no Fixtures sheet (nor a Teams sheet to generate fixtures "
-            "from)" + suggestion("Fixtures", [n for n in found.values()]),
+            "the workbook has no Fixtures sheet (nor a Teams sheet to generate fixtures from)",
             Place("Fixtures"),
         )
     return None, None
@@ -332,7 +343,8 @@ def _after_sheet_fixtures(fixtures: list[Fixture], teams: TeamsRead, ctx: ReadCo
     for name in teams.order:
         if name not in playing:
             ctx.report.warn(
-                "the team has no fixtures", Place("Teams", teams.rows[name], "Team", name)
+                "the team has no fixtures",
+                Place(teams.sheet, teams.rows[name], teams.team_header, name),
             )
 
 
@@ -340,9 +352,11 @@ def _read_rules(
     league: League, tables: dict[str, Table | None], found: dict[str, str], ctx: ReadContext
 ) -> None:
     """Clashes, Ties, Splits, Blocked and Distances, once fixtures, teams and venues are known."""
+    fixtures = tables.get("fixtures")
+    sheet = fixtures.sheet if fixtures is not None else None
     for f in league.fixtures:
         ctx.fixture_names.add(
-            f.label, Place("Fixtures", f.row, "Fixture") if f.row else Place("Teams")
+            f.label, Place(sheet, f.row, "Fixture") if f.row else Place(found.get("teams"))
         )
     resolver = Resolver(ctx, league.fixtures)
     order = {f.label: i for i, f in enumerate(league.fixtures)}

@@ -82,6 +82,14 @@ def round_cell(value: object, lookup: RoundLookup) -> tuple[list[int], str | Non
     day = to_date(value)
     if day is not None:
         found, why = lookup.on_date(day)
+        if len(found) > 1 and isinstance(value, dt.datetime) and value.time() != dt.time(0):
+            slot = [r.number for r in lookup.rounds if r.date == day and r.time == value.time()]
+            found = slot or found
+        if found and found[0] > MAX_ROUND:
+            return (
+                [],
+                f"there is no round {found[0]}: LeagueGrid handles at most {MAX_ROUND} rounds",
+            )
         return (found, None) if found else ([], why)
     if looks_like_date(value):
         return [], f"not a date: {date_advice(value)}"

@@ -32,7 +32,7 @@ class CountingModel:
     league: League
     rounds: int
     clashes: nx.Graph  # fixture-level: the clash graph plus split edges, "reasons" on each edge
-    graph: nx.Graph  # tied fixtures merged: what the engine counts
+    graph: nx.Graph  # tied fixtures merged (every clash and split edge, with reasons)
     node_of: dict[str, str]  # fixture label -> its node in `graph`
     members: dict[str, tuple[str, ...]]  # node -> its fixture labels, league order
     pins: dict[str, int]  # node -> round
@@ -45,6 +45,19 @@ class CountingModel:
     rules_generator: list[str]
     contradictions: list[str] = field(default_factory=list)  # proven impossibilities, in words
     notes: list[str] = field(default_factory=list)
+    engine_graph: nx.Graph | None = None  # `graph` less edges whose ends share no round
+
+    def counted(self) -> nx.Graph:
+        """The graph handed to the engine: `graph` without the edges that cannot bind for K
+        rounds (their two nodes have no allowed round in common, e.g. a first leg and a return
+        fixture under Return half), so it falls apart into independent pieces. Same counts."""
+        if self.engine_graph is None:
+            doms = {v: self.domain(v) for v in self.graph}
+            g = nx.Graph()
+            g.add_nodes_from(self.graph)
+            g.add_edges_from((u, v) for u, v in self.graph.edges if doms[u] & doms[v])
+            self.engine_graph = g
+        return self.engine_graph
 
     def expand(self, assignment: dict[str, int]) -> dict[str, int]:
         """Node -> round as fixture label -> round, in league order."""
@@ -81,7 +94,7 @@ class CountingModel:
         if self.contradictions:
             return 0
         return engine.count_assignments(
-            self.graph, self.rounds, pins=self.pins, exclusions=self.exclusions, hooks=hooks
+            self.counted(), self.rounds, pins=self.pins, exclusions=self.exclusions, hooks=hooks
         )
 
     def count_all_rounds_used(self, hooks: engine.Hooks | None = None) -> int:
@@ -89,7 +102,7 @@ class CountingModel:
         if self.contradictions:
             return 0
         return engine.count_all_rounds_used(
-            self.graph, self.rounds, pins=self.pins, exclusions=self.exclusions, hooks=hooks
+            self.counted(), self.rounds, pins=self.pins, exclusions=self.exclusions, hooks=hooks
         )
 
     def fewest_rounds(self, hooks: engine.Hooks | None = None) -> int | None:
@@ -360,7 +373,8 @@ def fewest_rounds(model: CountingModel, hooks: engine.Hooks | None = None) -> in
     base = model_from_clashes(league, model.clashes, top, use_return_half=False)
     if base.contradictions:
         return None
-    low = engine.min_rounds(base.graph, pins=base.pins, exclusions=base.exclusions, hooks=hooks)
+    low = engine.min_rounds(base.counted(), pins=base.pins, exclusions=base.exclusions,
+                            hooks=hooks)
     if return_half(league, top) is None:
         return low
     for k in range(low, 2 * top + 1):

@@ -61,7 +61,7 @@ def draw_many(
     if model.contradictions:
         raise engine.NoAssignment("; ".join(model.contradictions))
     drawn = engine.sample_assignments(
-        model.graph, model.rounds, rng, count, pins=model.pins, exclusions=model.exclusions,
+        model.counted(), model.rounds, rng, count, pins=model.pins, exclusions=model.exclusions,
         hooks=hooks,
     )
     return [model.expand(nodes) for nodes in drawn]

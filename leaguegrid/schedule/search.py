@@ -60,7 +60,8 @@ class _State:
         self.nodes = list(model.graph.nodes)
         index = {v: i for i, v in enumerate(self.nodes)}
         self.n = len(self.nodes)
-        self.adj = [[index[u] for u in model.graph[v]] for v in self.nodes]
+        counted = model.counted()
+        self.adj = [[index[u] for u in counted[v]] for v in self.nodes]
         self.size = [len(model.members[v]) for v in self.nodes]
         self.fixtures = sum(self.size)
         order = {f.label: i for i, f in enumerate(model.league.fixtures)}

@@ -139,7 +139,7 @@ def contract(model: CountingModel, a: str, b: str) -> int:
     pa, pb = model.pins.get(a), model.pins.get(b)
     if pa is not None and pb is not None and pa != pb:
         return 0
-    g = nx.contracted_nodes(model.graph, a, b, self_loops=False, copy=True)
+    g = nx.contracted_nodes(model.counted(), a, b, self_loops=False, copy=True)
     pins = {v: r for v, r in model.pins.items() if v != b}
     if pb is not None:
         pins[a] = pb

@@ -28,29 +28,72 @@ def realistic_sheets() -> dict[str, list[list[object]]]:
     """A league using every sheet of the format."""
     return {
         "Fixtures": [
-            ["Fixture", "Home", "Away", "Venue", "Pitch", "Division", "Round", "Played", "Score",
-             "Referee"],
+            [
+                "Fixture",
+                "Home",
+                "Away",
+                "Venue",
+                "Pitch",
+                "Division",
+                "Round",
+                "Played",
+                "Score",
+                "Referee",
+            ],
             [None, "Alder U10", "Birch U10", "Oak Rd", 1, "U10", 1, "yes", "2-1", "Ann; Bo"],
             [None, "Cedar U10", "Damson U10", "Oak Rd", 2, "U10", None, None, None, "Bo"],
-            [None, "Alder U10", "Cedar U10", "Pine St", None, "U10", "2025-09-13", None, None, None],
+            [
+                None,
+                "Alder U10",
+                "Cedar U10",
+                "Pine St",
+                None,
+                "U10",
+                "2025-09-13",
+                None,
+                None,
+                None,
+            ],
             ["Cup Final", None, None, "Pine St", None, None, None, None, None, "Cy"],
             [None, "Birch U10", "Damson U10", "=A2", None, "U10", None, None, None, None],
             [None, "Elm U10", "Fir U10", "Elm Park", None, "U10", None, None, None, "Di"],
         ],
-        "Teams": [["Team", "Venue", "Division", "Club"], ["Alder U10", "Oak Rd", "U10", "Alder"],
-                  ["Birch U10", "Pine St", "U10", "Birch"]],
-        "Clashes": [["First", "Second", "Reason"], ["team: Alder U10", "Birch U10", "coach"],
-                    ["venue: Oak Rd", "Cup Final", "stewards"]],
-        "Rounds": [["Round", "Date", "Time"], [1, dt.date(2025, 9, 6), dt.time(9, 0)],
-                   [2, dt.date(2025, 9, 13), None], [3, "2025-09-20", None], [4, None, None]],
-        "Settings": [["Setting", "Value"], ["Shared", "Home, Away, Venue, Referee"],
-                     ["League", "Fuzz Valley"], ["Max home run", 2], ["Return half", "no"]],
+        "Teams": [
+            ["Team", "Venue", "Division", "Club"],
+            ["Alder U10", "Oak Rd", "U10", "Alder"],
+            ["Birch U10", "Pine St", "U10", "Birch"],
+        ],
+        "Clashes": [
+            ["First", "Second", "Reason"],
+            ["team: Alder U10", "Birch U10", "coach"],
+            ["venue: Oak Rd", "Cup Final", "stewards"],
+        ],
+        "Rounds": [
+            ["Round", "Date", "Time"],
+            [1, dt.date(2025, 9, 6), dt.time(9, 0)],
+            [2, dt.date(2025, 9, 13), None],
+            [3, "2025-09-20", None],
+            [4, None, None],
+        ],
+        "Settings": [
+            ["Setting", "Value"],
+            ["Shared", "Home, Away, Venue, Referee"],
+            ["League", "Fuzz Valley"],
+            ["Max home run", 2],
+            ["Return half", "no"],
+        ],
         "Ties": [["First", "Second"], ["Elm U10 v Fir U10", "Cup Final"]],
         "Splits": [["First", "Second", "Reason"], ["Cup Final", "Alder U10 v Cedar U10", "split"]],
-        "Blocked": [["Team", "Venue", "Round", "Date", "Reason"], ["Birch U10", None, 4, None, "bye"],
-                    [None, "Pine St", None, "2025-09-20", "fair"]],
-        "Venues": [["Venue", "Pitches", "Latitude", "Longitude"], ["Oak Rd", 2, 51.5, -0.1],
-                   ["Pine St", 1, 51.6, -0.2]],
+        "Blocked": [
+            ["Team", "Venue", "Round", "Date", "Reason"],
+            ["Birch U10", None, 4, None, "bye"],
+            [None, "Pine St", None, "2025-09-20", "fair"],
+        ],
+        "Venues": [
+            ["Venue", "Pitches", "Latitude", "Longitude"],
+            ["Oak Rd", 2, 51.5, -0.1],
+            ["Pine St", 1, 51.6, -0.2],
+        ],
         "Distances": [["From", "To", "Km"], ["Oak Rd", "Pine St", 11.5]],
     }
 
@@ -85,7 +128,8 @@ def check_load(data: bytes, suffix: str = ".xlsx") -> LoadResult:
     assert isinstance(result, LoadResult)
     assert all(isinstance(p, Problem) and p.file == str(path) for p in result.problems)
     assert not [p for p in result.problems if p.message.startswith(UNEXPECTED)], [
-        str(p) for p in result.problems]
+        str(p) for p in result.problems
+    ]
     if result.league is None:
         assert result.errors
     return result
@@ -95,7 +139,8 @@ def test_the_realistic_workbook_and_the_demos_load():
     result = check_load(originals()[0])
     assert [p.message for p in result.errors] == [
         "cell D6 holds a formula with no saved result: open the workbook in a spreadsheet "
-        "program, let it calculate, and save it"]
+        "program, let it calculate, and save it"
+    ]
     for data in originals()[1:]:
         assert check_load(data).ok
 
@@ -145,9 +190,19 @@ def test_damaged_parts_inside_the_archive(data):
         elif action == "cut":
             del part[at:]
         else:
-            part[at:at] = data.draw(st.sampled_from(
-                [b"<c r=\"A1\" t=\"s\"><v>999</v></c>", b"<row r=\"0\">", b"]]>", b"&bogus;",
-                 b"<f>1/0</f>", b"<v>-1e999</v>", b"<c r=\"XFD1048576\"><v>1</v></c>"]))
+            part[at:at] = data.draw(
+                st.sampled_from(
+                    [
+                        b'<c r="A1" t="s"><v>999</v></c>',
+                        b'<row r="0">',
+                        b"]]>",
+                        b"&bogus;",
+                        b"<f>1/0</f>",
+                        b"<v>-1e999</v>",
+                        b'<c r="XFD1048576"><v>1</v></c>',
+                    ]
+                )
+            )
     parts[name] = bytes(part)
     buffer = io.BytesIO()
     with zipfile.ZipFile(buffer, "w", zipfile.ZIP_DEFLATED) as archive:
@@ -159,10 +214,41 @@ def test_damaged_parts_inside_the_archive(data):
 CELLS = st.one_of(
     st.none(),
     st.text(st.characters(blacklist_categories=("Cs", "Cc")), max_size=12),
-    st.sampled_from(["Alder", "alder ", "Birch", "team: Alder", "venue: Oak", "fixture: Alder v Birch",
-                     "Oak", "2025-09-13", "13/09/2025", "yes", "x", "0", "-3", "1e400", "Home",
-                     "Away", "Round", "Fixture", "Venue", "Pitch", "Team", "Division", "First",
-                     "Second", "Setting", "Value", "Legs", "Shared", "Start date", "Skip", "#N/A"]),
+    st.sampled_from(
+        [
+            "Alder",
+            "alder ",
+            "Birch",
+            "team: Alder",
+            "venue: Oak",
+            "fixture: Alder v Birch",
+            "Oak",
+            "2025-09-13",
+            "13/09/2025",
+            "yes",
+            "x",
+            "0",
+            "-3",
+            "1e400",
+            "Home",
+            "Away",
+            "Round",
+            "Fixture",
+            "Venue",
+            "Pitch",
+            "Team",
+            "Division",
+            "First",
+            "Second",
+            "Setting",
+            "Value",
+            "Legs",
+            "Shared",
+            "Start date",
+            "Skip",
+            "#N/A",
+        ]
+    ),
     st.integers(-5, 10**12),
     st.floats(allow_nan=False, allow_infinity=False),
     st.booleans(),
@@ -172,18 +258,22 @@ CELLS = st.one_of(
 
 
 @FUZZ
-@given(st.dictionaries(
-    st.sampled_from(sorted(SHEETS.values())),
-    st.lists(st.lists(CELLS, max_size=6), max_size=8),
-    min_size=1, max_size=5,
-))
+@given(
+    st.dictionaries(
+        st.sampled_from(sorted(SHEETS.values())),
+        st.lists(st.lists(CELLS, max_size=6), max_size=8),
+        min_size=1,
+        max_size=5,
+    )
+)
 def test_random_cells_in_known_sheets(sheets):
     check_load(workbook_bytes(sheets))
 
 
 @FUZZ
-@given(st.lists(st.lists(CELLS, max_size=5), max_size=8), st.sampled_from([",", ";"]),
-       st.booleans())
+@given(
+    st.lists(st.lists(CELLS, max_size=5), max_size=8), st.sampled_from([",", ";"]), st.booleans()
+)
 def test_random_csv(rows, delimiter, bom):
     text = "\n".join(delimiter.join(str(v) if v is not None else "" for v in row) for row in rows)
     check_load(("\ufeff" if bom else "").encode() + text.encode("utf-8", "surrogatepass"), ".csv")

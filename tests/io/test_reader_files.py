@@ -140,8 +140,10 @@ def test_csv_with_binary_bytes(tmp_path):
 
 
 def test_formula_without_saved_result_names_the_cell(tmp_path):
-    path = write_book(tmp_path / "league.xlsx",
-                      {"Fixtures": [["Home", "Away", "Round"], ["Alder", "Birch", "=1+1"]]})
+    path = write_book(
+        tmp_path / "league.xlsx",
+        {"Fixtures": [["Home", "Away", "Round"], ["Alder", "Birch", "=1+1"]]},
+    )
     result = load_league(path)
     problem = one(errors(result))
     assert problem.message == (
@@ -149,22 +151,36 @@ def test_formula_without_saved_result_names_the_cell(tmp_path):
         "program, let it calculate, and save it"
     )
     assert (problem.sheet, problem.row, problem.column, problem.value) == (
-        "Fixtures", 2, "Round", None)
+        "Fixtures",
+        2,
+        "Round",
+        None,
+    )
 
 
 def test_formula_with_saved_result_is_read(tmp_path):
-    path = write_book(tmp_path / "league.xlsx",
-                      {"Fixtures": [["Home", "Away", "Round", "Note"], ["x", "Birch", 2, "x"]]})
-    patch_cells(path, "xl/worksheets/sheet1.xml", {
-        "A2": '<c r="A2" t="str"><f>"Al"&amp;"der"</f><v>Alder</v></c>',
-        "C2": '<c r="C2"><f>1+1</f><v>2</v></c>',
-        "D2": '<c r="D2" t="str"><f>""</f><v></v></c>',  # a formula whose result is empty text
-    })
+    path = write_book(
+        tmp_path / "league.xlsx",
+        {"Fixtures": [["Home", "Away", "Round", "Note"], ["x", "Birch", 2, "x"]]},
+    )
+    patch_cells(
+        path,
+        "xl/worksheets/sheet1.xml",
+        {
+            "A2": '<c r="A2" t="str"><f>"Al"&amp;"der"</f><v>Alder</v></c>',
+            "C2": '<c r="C2"><f>1+1</f><v>2</v></c>',
+            "D2": '<c r="D2" t="str"><f>""</f><v></v></c>',  # a formula whose result is empty text
+        },
+    )
     result = load_league(path)
     assert result.ok, [str(p) for p in result.problems]
     fixture = result.league.fixtures[0]
     assert (fixture.label, fixture.home, fixture.pin, fixture.notes) == (
-        "Alder v Birch", "Alder", 2, {})
+        "Alder v Birch",
+        "Alder",
+        2,
+        {},
+    )
 
 
 def test_spreadsheet_error_value(tmp_path):
@@ -194,3 +210,20 @@ def test_two_sheets_with_one_name(tmp_path):
         "two sheets are named Fixtures ('Fixtures' and 'FIXTURES '); only the first is read"
     )
     assert problem.sheet == "FIXTURES "
+
+
+def test_unexpected_failure_becomes_a_problem_naming_the_file(tmp_path, monkeypatch):
+    from leaguegrid.io import league_reader
+
+    def broken(league):
+        raise RuntimeError("boom")
+
+    monkeypatch.setattr(league_reader, "build_clash_graph", broken)
+    path = write_book(tmp_path / "league.xlsx", {"Fixtures": FIXTURES})
+    result = load_league(path)
+    assert result.league is None
+    problem = one(result.problems)
+    assert (problem.file, problem.message) == (
+        str(path),
+        "could not be read because of an unexpected error (RuntimeError: boom); please report this",
+    )

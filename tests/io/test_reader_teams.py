@@ -16,12 +16,20 @@ def test_six_teams_fifteen_fixtures_home_and_away_balanced(tmp_path):
     fixtures = result.league.fixtures
     assert len(fixtures) == 15  # 6 choose 2
     pairs = {frozenset(f.teams) for f in fixtures}
-    assert pairs == {frozenset(p) for p in combinations("Alder Birch Cedar Damson Elm Fir".split(), 2)}
+    assert pairs == {
+        frozenset(p) for p in combinations(["Alder", "Birch", "Cedar", "Damson", "Elm", "Fir"], 2)
+    }
     home = Counter(f.home for f in fixtures)
     assert sorted(home.values()) == [2, 2, 2, 3, 3, 3]  # 5 games each: home 2 or 3 times
     for f in fixtures:
         assert (f.label, f.venue, f.division, f.leg, f.row, f.pin) == (
-            f"{f.home} v {f.away}", f"{f.home} Park", "U12", 1, None, None)
+            f"{f.home} v {f.away}",
+            f"{f.home} Park",
+            "U12",
+            1,
+            None,
+            None,
+        )
 
 
 def test_two_legs_thirty_fixtures_with_home_and_away_swapped(tmp_path):
@@ -33,7 +41,9 @@ def test_two_legs_thirty_fixtures_with_home_and_away_swapped(tmp_path):
     first, second = fixtures[:15], fixtures[15:]
     assert [(f.away, f.home) for f in first] == [(f.home, f.away) for f in second]
     assert {f.leg for f in first} == {1} and {f.leg for f in second} == {2}
-    assert Counter(f.home for f in fixtures) == Counter({t: 5 for t in "Alder Birch Cedar Damson Elm Fir".split()})
+    assert Counter(f.home for f in fixtures) == Counter(
+        {t: 5 for t in ["Alder", "Birch", "Cedar", "Damson", "Elm", "Fir"]}
+    )
     assert second[0].venue == f"{second[0].home} Park"
 
 
@@ -48,7 +58,11 @@ def test_balance_for_every_division_size():
 
 
 def test_round_robin_inside_each_division(tmp_path):
-    rows = [["Team", "Division"]] + [[f"A{i}", "A"] for i in range(4)] + [[f"B{i}", "B"] for i in range(5)]
+    rows = (
+        [["Team", "Division"]]
+        + [[f"A{i}", "A"] for i in range(4)]
+        + [[f"B{i}", "B"] for i in range(5)]
+    )
     result = load_book(tmp_path, {"Teams": rows})
     assert result.ok
     divisions = Counter(f.division for f in result.league.fixtures)
@@ -62,7 +76,12 @@ def test_team_listed_twice(tmp_path):
     result = load_book(tmp_path, {"Teams": rows})
     problem = one(errors(result))
     assert problem.message == "the team is listed twice (rows 2 and 8)"
-    assert (problem.sheet, problem.row, problem.column, problem.value) == ("Teams", 8, "Team", "alder")
+    assert (problem.sheet, problem.row, problem.column, problem.value) == (
+        "Teams",
+        8,
+        "Team",
+        "alder",
+    )
 
 
 def test_division_with_one_team(tmp_path):
@@ -71,28 +90,39 @@ def test_division_with_one_team(tmp_path):
     assert result.ok
     problem = one(warnings_of(result))
     assert problem.message == "the division has only one team, so it has no fixtures"
-    assert (problem.sheet, problem.row, problem.column, problem.value) == ("Teams", 8, "Division", "U14")
+    assert (problem.sheet, problem.row, problem.column, problem.value) == (
+        "Teams",
+        8,
+        "Division",
+        "U14",
+    )
 
 
 def test_empty_teams_sheet(tmp_path):
     result = load_book(tmp_path, {"Teams": [["Team", "Venue"]]})
     problem = one(result.problems)
     assert (problem.message, problem.sheet, problem.row) == (
-        "the sheet has a header row but no teams", "Teams", 1)
+        "the sheet has a header row but no teams",
+        "Teams",
+        1,
+    )
     result = load_book(tmp_path, {"Teams": []})
     assert one(result.problems).message == "the sheet is empty"
 
 
 def test_teams_sheet_missing_team_column(tmp_path):
     result = load_book(tmp_path, {"Teams": [["Name", "Venue"], ["Alder", "Park"]]})
-    assert one(errors(result)).message == "the sheet has no Team column (columns found: Name, Venue)"
+    assert (
+        one(errors(result)).message == "the sheet has no Team column (columns found: Name, Venue)"
+    )
 
 
 def test_empty_fixtures_sheet_falls_back_to_teams(tmp_path):
     result = load_book(tmp_path, {"Fixtures": [["Home", "Away"]], "Teams": six_teams()})
     assert result.ok and len(result.league.fixtures) == 15
     assert one(warnings_of(result)).message == (
-        "the sheet has no fixtures; fixtures are generated from the Teams sheet")
+        "the sheet has no fixtures; fixtures are generated from the Teams sheet"
+    )
 
 
 def test_teams_with_fixtures_sheet_add_details_only(tmp_path):
@@ -102,5 +132,14 @@ def test_teams_with_fixtures_sheet_add_details_only(tmp_path):
     fixture = result.league.fixtures[0]
     assert (fixture.venue, fixture.division) == ("Alder Park", "U12")
     assert [(p.message, p.row, p.value) for p in warnings_of(result)] == [
-        ("the team has no fixtures", n, name) for n, name in
-        ((4, "Cedar"), (5, "Damson"), (6, "Elm"), (7, "Fir"))]
+        ("the team has no fixtures", n, name)
+        for n, name in ((4, "Cedar"), (5, "Damson"), (6, "Elm"), (7, "Fir"))
+    ]
+
+
+def test_generated_labels_stay_unique(tmp_path):
+    rows = [["Team"], ["A"], ["B v C"], ["A v B"], ["C"]]
+    result = load_book(tmp_path, {"Teams": rows})
+    labels = [f.label for f in result.league.fixtures]
+    assert len(labels) == 6 and len({label.casefold() for label in labels}) == 6
+    assert "A v B v C (2)" in labels

@@ -42,9 +42,9 @@ def textbook_graph(league: League) -> nx.Graph:
     for f, h in itertools.combinations(league.fixtures, 2):
         for t in sorted(set(f.teams) & set(h.teams)):
             add(f.label, h.label, Reason("team", t))
-        if f.venue and f.venue == h.venue and f.venue not in multi:
-            if f.pitch is None or h.pitch is None or f.pitch == h.pitch:
-                add(f.label, h.label, Reason("venue", f.venue))
+        same_ground = f.venue and f.venue == h.venue and f.venue not in multi
+        if same_ground and (f.pitch is None or h.pitch is None or f.pitch == h.pitch):
+            add(f.label, h.label, Reason("venue", f.venue))
     for row in league.clash_rows:
         for a, b in row.pairs:
             add(a, b, Reason("clash", row.reason, row.row))

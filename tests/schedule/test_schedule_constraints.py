@@ -6,7 +6,7 @@ from __future__ import annotations
 import random
 
 import pytest
-from schedule_helpers import brute, round_robin, fx, make_league, textbook_graph
+from schedule_helpers import brute, fx, make_league, round_robin, textbook_graph
 
 from leaguegrid.model import Blocked, ClashRow, Settings, Split, Tie, Venue
 from leaguegrid.schedule.constraints import build_model

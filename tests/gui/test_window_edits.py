@@ -1,0 +1,235 @@
+"""Pins, ties, moves, waived and added clashes from the window: each changes the counts exactly
+as the engine says, and Undo/Redo take it back. Project files and column matching."""
+
+import os
+
+os.environ["QT_QPA_PLATFORM"] = "offscreen"
+
+import json  # noqa: E402
+import shutil  # noqa: E402
+from pathlib import Path  # noqa: E402
+
+import networkx as nx  # noqa: E402
+from openpyxl import load_workbook  # noqa: E402
+from PySide6.QtWidgets import QFileDialog, QInputDialog  # noqa: E402
+
+from leaguegrid import engine  # noqa: E402
+from leaguegrid.clashgraph import build_clash_graph, without_reasons  # noqa: E402
+from leaguegrid.gui import mapping_dialog  # noqa: E402
+from leaguegrid.io.league_reader import load_league  # noqa: E402
+
+SMALL = Path(__file__).resolve().parents[2] / "demo_leagues" / "small.xlsx"
+
+
+def wait_idle(qtbot, win):
+    qtbot.waitUntil(lambda: not win.runner.busy and not win._recount.isActive(), timeout=30_000)
+
+
+def open_small(qtbot, win, tmp_path):
+    path = tmp_path / "small.xlsx"
+    shutil.copy(SMALL, path)
+    win.open_path(str(path))
+    qtbot.waitUntil(lambda: win.report is not None, timeout=30_000)
+    wait_idle(qtbot, win)
+    return path
+
+
+def shown(win, k):
+    return next(r["assignments"] for r in win.counts_view.values() if r["rounds"] == k)
+
+
+def engine_count(graph, k, pins):
+    return engine.count_assignments(graph, k, pins=pins)
+
+
+def test_pin_from_the_window_updates_counts_and_undo_redo(qtbot, window, tmp_path, monkeypatch):
+    path = open_small(qtbot, window, tmp_path)
+    graph = build_clash_graph(load_league(path).league)
+    assert shown(window, 5) == engine_count(graph, 5, {"Otters v Badgers": 1})
+    window.doc.select("Herons v Wrens")
+    monkeypatch.setattr(QInputDialog, "getInt", staticmethod(lambda *a, **k: (2, True)))
+    window.act_pin.trigger()
+    wait_idle(qtbot, window)
+    pinned = {"Otters v Badgers": 1, "Herons v Wrens": 2}
+    assert shown(window, 5) == engine_count(graph, 5, pinned)
+    assert window.windowTitle() == "LeagueGrid — Fenwick Vale Under-11s"
+    window.act_undo.trigger()
+    wait_idle(qtbot, window)
+    assert shown(window, 5) == engine_count(graph, 5, {"Otters v Badgers": 1})
+    window.act_redo.trigger()
+    wait_idle(qtbot, window)
+    assert shown(window, 5) == engine_count(graph, 5, pinned)
+
+
+def test_tie_merges_two_fixtures_in_the_counts(qtbot, window, tmp_path):
+    path = open_small(qtbot, window, tmp_path)
+    graph = build_clash_graph(load_league(path).league)
+    window.fixtures_view.tieRequested.emit("Herons v Wrens", "Otters v Badgers")
+    wait_idle(qtbot, window)
+    merged = nx.contracted_nodes(graph, "Otters v Badgers", "Herons v Wrens", self_loops=False)
+    assert shown(window, 5) == engine_count(merged, 5, {"Otters v Badgers": 1})
+    assert "(tied)" in window.fixtures_view.table.item(
+        window.fixtures_view.rows["Herons v Wrens"], 0).text()
+    window.act_undo.trigger()
+    wait_idle(qtbot, window)
+    assert shown(window, 5) == engine_count(graph, 5, {"Otters v Badgers": 1})
+
+
+def test_moving_a_fixture_says_at_once_what_it_breaks(qtbot, window, tmp_path):
+    open_small(qtbot, window, tmp_path)
+    window.act_draw.trigger()
+    wait_idle(qtbot, window)
+    schedule = window.doc.schedule
+    assert window.schedule_view.status.text().startswith("✔")
+    label, other = "Herons v Wrens", "Herons v Otters"  # both Herons: a team clash
+    window.schedule_view.moveRequested.emit(label, schedule.assignment[other])
+    status = window.schedule_view.status.text()
+    assert status.startswith("✘ This schedule breaks")
+    assert label in status and other in status and "team Herons" in status
+    assert window.schedule_view.chips[label].text().startswith("⚠")
+    window.act_undo.trigger()
+    assert window.schedule_view.status.text().startswith("✔")
+    assert window.doc.schedule.assignment[label] != schedule.assignment[other]
+
+
+def test_waive_the_top_reason_and_add_a_clash_then_undo(qtbot, window, tmp_path):
+    path = open_small(qtbot, window, tmp_path)
+    league = load_league(path).league
+    graph = build_clash_graph(league)
+    window.act_whatif.trigger()
+    wait_idle(qtbot, window)
+    view = window.whatif_view
+    assert view.table.rowCount() == len(view.rows) > 0
+    view.table.selectRow(0)
+    reason = view.current_reason()
+    top = view.rows[0]
+    view.waive_button.click()
+    wait_idle(qtbot, window)
+    k = window.rounds_box.value()
+    pins = {"Otters v Badgers": 1}
+    assert shown(window, k) == engine_count(without_reasons(graph, [reason]), k, pins)
+    assert top.assignments_if_waived == shown(window, k)
+    assert "Waived: " in view.state.text()
+    window.act_undo.trigger()
+    wait_idle(qtbot, window)
+    assert shown(window, k) == engine_count(graph, k, pins)
+    view.addRequested.emit("Herons v Wrens", "Otters v Badgers")
+    wait_idle(qtbot, window)
+    added = graph.copy()
+    added.add_edge("Herons v Wrens", "Otters v Badgers")
+    assert shown(window, k + 1) == engine_count(added, k + 1, pins)
+    window.act_undo.trigger()
+    wait_idle(qtbot, window)
+    assert shown(window, k + 1) == engine_count(graph, k + 1, pins)
+
+
+def test_project_saves_pins_and_schedule_and_notices_a_changed_workbook(
+        qtbot, window, tmp_path, monkeypatch):
+    path = open_small(qtbot, window, tmp_path)
+    window.pin_fixture("Herons v Wrens", 2)
+    wait_idle(qtbot, window)
+    window.act_draw.trigger()
+    wait_idle(qtbot, window)
+    drawn = dict(window.doc.schedule.assignment)
+    project = tmp_path / "season.leaguegrid"
+    monkeypatch.setattr(QFileDialog, "getSaveFileName",
+                        staticmethod(lambda *a, **k: (str(project), "")))
+    window.act_save_as.trigger()
+    saved = json.loads(project.read_text(encoding="utf-8"))
+    assert saved["pins"] == {"Herons v Wrens": 2}
+    assert saved["schedule"]["assignment"] == drawn
+    assert saved["workbook"]["relative"] == "small.xlsx"
+    assert not list(tmp_path.glob(".*.tmp"))
+
+    window.open_path(str(project))
+    qtbot.waitUntil(lambda: window.doc.project_path == str(project), timeout=30_000)
+    wait_idle(qtbot, window)
+    assert window.doc.edits.pins == {"Herons v Wrens": 2}
+    assert window.doc.schedule.assignment == drawn
+    assert window.last_error is None
+
+    book = load_workbook(path)
+    book["Fixtures"]["F2"] = "changed note"
+    book.save(path)
+    window.open_path(str(project))
+    qtbot.waitUntil(lambda: window.last_error is not None, timeout=30_000)
+    assert window.last_error.startswith("The workbook small.xlsx has changed since the project "
+                                        "was saved")
+
+
+def test_column_matching_is_applied_and_remembered(qtbot, window, settings, tmp_path,
+                                                   monkeypatch):
+    path = tmp_path / "clubs.csv"
+    path.write_text("Home team;Away team;Ground\nOtters;Herons;Alder Green\n"
+                    "Wrens;Badgers;Alder Green\nOtters;Wrens;Millbrook\n", encoding="utf-8")
+    window.open_path(str(path))
+    qtbot.waitUntil(lambda: window.doc.result is not None and not window.runner.busy)
+    assert not window.doc.usable
+
+    def choose(dialog):
+        dialog.combos["Home"].setCurrentText("Home team")
+        dialog.combos["Away"].setCurrentText("Away team")
+        dialog.combos["Venue"].setCurrentText("Ground")
+        return 1
+
+    monkeypatch.setattr(mapping_dialog.MappingDialog, "exec", choose)
+    window.act_mapping.trigger()
+    qtbot.waitUntil(lambda: window.report is not None, timeout=30_000)
+    wait_idle(qtbot, window)
+    assert window.doc.usable
+    assert [f.label for f in window.doc.league.fixtures] == [
+        "Otters v Herons", "Wrens v Badgers", "Otters v Wrens"]
+    assert window.report.clashes == 3  # Otters twice, Wrens twice, Alder Green twice
+    assert path.read_text(encoding="utf-8").startswith("Home team;Away team;Ground")
+    assert mapping_dialog.load_mapping(settings, str(path)) == {
+        "Home": "Home team", "Away": "Away team", "Venue": "Ground"}
+    window.open_path(str(path))
+    qtbot.waitUntil(lambda: window.report is not None and window.doc.usable, timeout=30_000)
+    wait_idle(qtbot, window)
+
+
+def test_best_of_many_keeps_the_best_scoring_schedule(qtbot, window, tmp_path, monkeypatch):
+    open_small(qtbot, window, tmp_path)
+    monkeypatch.setattr(QInputDialog, "getInt", staticmethod(lambda *a, **k: (5, True)))
+    window.act_best.trigger()
+    wait_idle(qtbot, window)
+    schedule = window.doc.schedule
+    assert schedule is not None
+    assert any(note.startswith("best of 5 schedules") for note in schedule.notes)
+    assert any(note.startswith("score total:") for note in schedule.notes)
+    assert window.schedule_view.status.text().startswith("✔")
+    seed = schedule.seed
+    window.act_redraw.trigger()
+    wait_idle(qtbot, window)
+    assert window.doc.schedule.seed == seed
+
+
+def test_export_dialog_shows_what_is_written_and_keeps_reasons_private(
+        qtbot, window, tmp_path, settings):
+    from leaguegrid.gui.export_dialog import PRIVACY, ExportDialog
+
+    open_small(qtbot, window, tmp_path)
+    window.act_draw.trigger()
+    wait_idle(qtbot, window)
+    dialog = ExportDialog(window, window.doc.working_league(), window.doc.schedule, settings)
+    qtbot.addWidget(dialog)
+    dialog.xlsx_path.setText(str(tmp_path / "out.xlsx"))
+    dialog.ics_on.setChecked(True)
+    dialog.ics_path.setText(str(tmp_path / "ics"))
+    dialog.csv_on.setChecked(True)
+    dialog.csv_path.setText(str(tmp_path / "out.csv"))
+    preview = dialog.preview_text()
+    assert f"{tmp_path / 'out.xlsx'}" in preview
+    assert "team-Herons.ics" in preview
+    assert "one row per fixture (6 rows)" in preview
+    assert "clash reasons" in PRIVACY.lower()
+    written = window.export(dialog.choices())
+    assert str(tmp_path / "out.xlsx") in written and str(tmp_path / "out.csv") in written
+    calendars = sorted(p.name for p in (tmp_path / "ics").iterdir())
+    assert "team-Herons.ics" in calendars
+    for name in calendars:
+        assert "One set of goals" not in (tmp_path / "ics" / name).read_text(encoding="utf-8")
+    csv_text = (tmp_path / "out.csv").read_text(encoding="utf-8-sig")
+    for label in window.doc.schedule.assignment:
+        assert csv_text.count(label) >= 1
+    assert "One set of goals" not in csv_text

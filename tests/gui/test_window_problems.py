@@ -1,0 +1,94 @@
+"""A malformed workbook shows its problems in the window (each one goes to its cell), and
+nothing crashes: no counts are attempted and the window stays usable."""
+
+import os
+
+os.environ["QT_QPA_PLATFORM"] = "offscreen"
+
+from openpyxl import Workbook  # noqa: E402
+from PySide6.QtCore import QMimeData, QPointF, Qt, QUrl  # noqa: E402
+from PySide6.QtGui import QDropEvent  # noqa: E402
+
+
+def wait_idle(qtbot, win):
+    qtbot.waitUntil(lambda: win.doc.result is not None and not win.runner.busy, timeout=30_000)
+
+
+def bad_workbook(path):
+    wb = Workbook()
+    ws = wb.active
+    ws.title = "Fixtures"
+    ws.append(["Fixture", "Home", "Away", "Venue"])
+    ws.append([None, "Otters", "Otters", "Alder Green"])
+    ws.append([None, "Herons", "Wrens", "Millbrook"])
+    ws.append([None, "Wrens", None, "Millbrook"])
+    clashes = wb.create_sheet("Clashes")
+    clashes.append(["First", "Second", "Reason"])
+    clashes.append(["Herons v Wrenz", "Herons", "one coach"])
+    wb.save(path)
+
+
+def test_problems_are_listed_and_each_goes_to_its_cell(qtbot, window, tmp_path):
+    path = tmp_path / "bad.xlsx"
+    bad_workbook(path)
+    window.open_path(str(path))
+    wait_idle(qtbot, window)
+    view = window.import_view
+    texts = [view.problems.item(i).text() for i in range(view.problems.count())]
+    assert texts == [
+        f"{path}, sheet Fixtures, row 2, column Away: 'Otters': Home and Away are the same team",
+        f"{path}, sheet Fixtures, row 4, column Away: the row needs a Fixture label or both "
+        "Home and Away",
+        f"{path}, sheet Clashes, row 2, column First: 'Herons v Wrenz': no fixture, team or "
+        "venue is named 'Herons v Wrenz'; did you mean 'Herons v Wrens'?",
+    ]
+    assert view.problem_heading.text() == ("Problems: 3 errors, 0 warnings "
+                                           "(click one to go to it)")
+    assert window.tabs.currentWidget() is view
+    view.go_to_problem(view.problems.item(2))
+    table = view.sheets.currentWidget()
+    assert view.sheets.tabText(view.sheets.currentIndex()) == "Clashes"
+    assert (table.currentRow(), table.currentColumn()) == (1, 0)
+    assert table.verticalHeaderItem(1).text() == "2"
+    view.go_to_problem(view.problems.item(0))
+    table = view.sheets.currentWidget()
+    assert table.item(table.currentRow(), table.currentColumn()).text() == "Otters"
+    assert table.currentColumn() == 2
+    assert window.report is None
+    assert not window.act_count.isEnabled()
+    assert not window.act_draw.isEnabled()
+    window.act_count.trigger()
+    assert not window.runner.busy
+
+
+def test_a_file_that_is_not_a_workbook_is_reported_not_raised(qtbot, window, tmp_path):
+    path = tmp_path / "junk.xlsx"
+    path.write_bytes(b"PK\x03\x04 truncated")
+    window.open_path(str(path))
+    wait_idle(qtbot, window)
+    assert window.windowTitle() == "LeagueGrid — junk.xlsx"
+    assert window.import_view.problems.count() == 1
+    assert window.import_view.problems.item(0).text() == (
+        f"{path}: the file is truncated or damaged: it begins like an Excel workbook but is "
+        "incomplete")
+    assert window.import_view.sheets.count() == 0
+
+
+def test_a_missing_file_is_reported(qtbot, window, tmp_path):
+    window.open_path(str(tmp_path / "nowhere.xlsx"))
+    wait_idle(qtbot, window)
+    assert window.import_view.problems.count() >= 1
+    assert window.last_error is None
+
+
+def test_dropping_a_workbook_on_the_window_opens_it(qtbot, window, tmp_path):
+    path = tmp_path / "bad.xlsx"
+    bad_workbook(path)
+    data = QMimeData()
+    data.setUrls([QUrl.fromLocalFile(str(path))])
+    event = QDropEvent(QPointF(10, 10), Qt.DropAction.CopyAction, data,
+                       Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier)
+    window.dropEvent(event)
+    wait_idle(qtbot, window)
+    assert window.doc.path == str(path)
+    assert window.recent_files()[0] == str(path)
