@@ -200,7 +200,8 @@ class League:
 
 @dataclass
 class LoadResult:
-    """What a reader returns: a league when the input is usable, and every problem found."""
+    """What a reader returns: every problem found, and the league as far as it could be read
+    (rows with errors left out). Use the league only when `ok`."""
 
     league: League | None
     problems: list[Problem] = field(default_factory=list)

@@ -88,12 +88,14 @@ def _uid(parts: Iterable[str]) -> str:
 
 
 def fixture_uids(league: League) -> dict[str, str]:
-    """Fixture label -> UID from stable keys (league, home, away, leg; or the label)."""
+    """Fixture label -> UID from stable keys: league, home and away (the direction tells the
+    return leg from the first); the label where a fixture has no teams or a pairing repeats in
+    the same direction. Not the leg number: the reader numbers legs in sheet order."""
     league_key = _norm(league.settings.league or league.name)
 
     def key(f: Fixture) -> tuple[str, ...]:
         if f.teams:
-            return (league_key, "teams", _norm(f.home), _norm(f.away), str(f.leg))
+            return (league_key, "teams", _norm(f.home), _norm(f.away))
         return (league_key, "fixture", _norm(f.label))
 
     keys = {f.label: key(f) for f in league.fixtures}

@@ -220,7 +220,7 @@ def model_from_clashes(
         for f in league.fixtures:
             span = range(half + 1, rounds + 1) if f.leg == 1 else range(1, half + 1)
             which = "first legs" if f.leg == 1 else "return fixtures"
-            where = f"rounds 1..{half}" if f.leg == 1 else f"rounds {half + 1}..{rounds}"
+            where = _rounds_span(1, half) if f.leg == 1 else _rounds_span(half + 1, rounds)
             for r in span:
                 blocks.setdefault(f.label, {}).setdefault(
                     r, f"Return half puts {which} in {where}"
@@ -353,10 +353,17 @@ def counted_rules(league: League, clashes: nx.Graph, half: int | None, rounds: i
         )
     if half is not None:
         out.append(
-            f"return half: first legs in rounds 1..{half}, return fixtures in rounds "
-            f"{half + 1}..{rounds}"
+            f"return half: first legs in {_rounds_span(1, half)}, return fixtures in "
+            f"{_rounds_span(half + 1, rounds)}"
         )
     return out
+
+
+def _rounds_span(a: int, b: int) -> str:
+    """'rounds 1..5', 'round 3' or 'no round'."""
+    if b < a:
+        return "no round"
+    return f"round {a}" if a == b else f"rounds {a}..{b}"
 
 
 def fewest_rounds(model: CountingModel, hooks: engine.Hooks | None = None) -> int | None:

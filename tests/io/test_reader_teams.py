@@ -138,7 +138,7 @@ def test_teams_with_fixtures_sheet_add_details_only(tmp_path):
 
 
 def test_generated_labels_stay_unique(tmp_path):
-    rows = [["Team"], ["A"], ["B v C"], ["A v B"], ["C"]]
+    rows = [["Team"], ["B v C"], ["A v B"], ["A"], ["C"]]
     result = load_book(tmp_path, {"Teams": rows})
     labels = [f.label for f in result.league.fixtures]
     assert len(labels) == 6 and len({label.casefold() for label in labels}) == 6

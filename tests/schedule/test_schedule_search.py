@@ -5,6 +5,7 @@ from __future__ import annotations
 
 import random
 import threading
+from collections import Counter
 
 import pytest
 from schedule_helpers import brute, fx, make_league, round_robin, textbook_graph
@@ -227,3 +228,40 @@ def test_every_schedule_found_is_among_the_brute_force_schedules(k):
     assert out.status == ("found" if ok else "impossible")
     if ok:
         assert out.assignment in ok
+
+
+def test_search_agrees_with_brute_force_on_random_small_leagues():
+    """Seeded random leagues with random rules: the search finds a schedule exactly when one
+    meets every rule (brute force), and says impossible otherwise (its pruning is sound)."""
+    rng = random.Random(4242)
+    teams = ["Ash", "Birch", "Cedar", "Daisy", "Elm"]
+    outcomes = Counter()
+    for _ in range(100):
+        fixtures, pairs = [], set()
+        while len(fixtures) < 6:
+            h, a = rng.sample(teams, 2)
+            if (h, a) not in pairs:
+                pairs.add((h, a))
+                fixtures.append(fx(h, a, rng.choice(["Hub", "Hub", "Vale", None])))
+        settings = Settings(
+            max_home_run=rng.choice([None, 1, 2]),
+            max_away_run=rng.choice([None, 1, 2]),
+            round_balance=rng.choice([None, 0, 1, 2]),
+        )
+        lg = make_league(fixtures, venues={"Hub": Venue("Hub", pitches=2)}, settings=settings)
+        if rng.random() < 0.4:
+            lg.blocked = [Blocked(rng.randint(1, 4), team=rng.choice(teams), row=2)]
+        if rng.random() < 0.3:
+            rng.choice(fixtures).pin = rng.randint(1, 3)
+        if rng.random() < 0.3:
+            first, second = rng.sample(fixtures, 2)
+            lg.ties = [Tie(first.label, second.label, row=2)]
+        k = rng.choice([3, 4])
+        model, out = run(lg, k, seed=rng.randint(0, 99))
+        ok = [a for a in brute(lg, textbook_graph(lg), k)
+              if not check_generator(lg, model.generator, a, k)]
+        assert out.status == ("found" if ok else "impossible"), (lg, k, out)
+        if ok:
+            assert out.assignment in ok
+        outcomes[out.status] += 1
+    assert outcomes["found"] >= 15 and outcomes["impossible"] >= 15
