@@ -139,7 +139,7 @@ def cmd_plan(args: argparse.Namespace) -> int:
 def cmd_whatif(args: argparse.Namespace) -> int:
     from leaguegrid.planning import run_whatif
 
-    return run_whatif(args)
+    return run_whatif(args, load)
 
 
 def open_window(path: Path | None) -> int:

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import argparse
+import json
 import sys
 
 from leaguegrid import engine
@@ -162,3 +163,61 @@ def _fewest(result: PlanResult, budget: float) -> int | None:
         return result.model.fewest_rounds(engine.Hooks(budget=budget))
     except (engine.BudgetExceeded, engine.Cancelled):
         return None
+
+
+def parse_add(text: str | None) -> tuple[str, str] | None:
+    """'NAME,NAME' -> the two names of a proposed clash (each a fixture, team or venue)."""
+    if text is None:
+        return None
+    first, sep, second = text.partition(",")
+    if not sep or not first.strip() or not second.strip():
+        raise UsageError(f"--add takes two names separated by a comma, not {text!r}")
+    return first.strip(), second.strip()
+
+
+def run_whatif(args: argparse.Namespace, load) -> int:
+    """`leaguegrid whatif`: every clash reason ranked by what waiving it would add."""
+    from leaguegrid.schedule.whatif import whatif
+
+    loaded = load(args.file)
+    if loaded is None:
+        return 1
+    league, graph = loaded
+    check_round_limit(league, args.rounds)
+    add = parse_add(args.add)
+    try:
+        report = whatif(league, graph, args.rounds, add=add, budget=args.budget)
+    except ValueError as err:  # a name in --add that is unknown, ambiguous or the same fixture
+        raise UsageError(str(err)) from err
+    if args.json:
+        json.dump(report.to_json(), sys.stdout, indent=2)
+        sys.stdout.write("\n")
+    else:
+        _print_whatif(league, report)
+    return 0 if report.complete else 5
+
+
+def _count_text(value: int | None) -> str:
+    return "not computed" if value is None else f"{value:,}"
+
+
+def _print_whatif(league: League, report) -> None:
+    """The ranked reasons as a table, then the proposed clash."""
+    k = report.rounds
+    print(f"{league.name}, {k} rounds: {_count_text(report.assignments)} valid assignments; "
+          f"fewest rounds {report.min_rounds if report.min_rounds is not None else 'unknown'}")
+    if report.reasons:
+        print("\nWaiving one clash reason (every clash that exists only because of it):")
+        print("Gain | Assignments if waived | Fewest rounds if waived | Clashes | Reason")
+        for w in report.reasons:
+            fewest = w.min_rounds_if_waived if w.min_rounds_if_waived is not None else "?"
+            print(f"{_count_text(w.gain)} | {_count_text(w.assignments_if_waived)} | {fewest} | "
+                  f"{len(w.edges)} | {w.reason} ({w.kind})")
+    if report.added is not None:
+        a = report.added
+        print(f"\nAdding a clash between {a.first} and {a.second} ({len(a.edges)} new clashing "
+              f"pairs): {_count_text(a.assignments_if_added)} assignments remain, "
+              f"{_count_text(a.loss)} fewer; fewest rounds "
+              f"{a.min_rounds_if_added if a.min_rounds_if_added is not None else 'unknown'}")
+    if not report.complete:
+        print("\nIncomplete: stopped at the budget; 'not computed' values are missing.")

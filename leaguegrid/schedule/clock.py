@@ -24,9 +24,11 @@ class Clock:
         """Seconds left, or None without a budget."""
         return None if self.deadline is None else max(0.0, self.deadline - time.monotonic())
 
-    def hooks(self, lo: float = 0.0, hi: float = 1.0) -> engine.Hooks:
-        """Engine hooks with what is left of the budget, progress mapped into [lo, hi]."""
-        return engine.Hooks(progress=self.scaled(lo, hi), cancel=self.cancel, budget=self.left())
+    def hooks(self, lo: float = 0.0, hi: float = 1.0, share: float = 1.0) -> engine.Hooks:
+        """Engine hooks with `share` of what is left of the budget, progress into [lo, hi]."""
+        left = self.left()
+        return engine.Hooks(progress=self.scaled(lo, hi), cancel=self.cancel,
+                            budget=None if left is None else left * share)
 
     def scaled(self, lo: float, hi: float) -> Progress | None:
         """A progress callback for a step whose 0..1 maps into [lo, hi] of the job."""

@@ -30,6 +30,8 @@ Status = Literal["found", "impossible", "budget", "cancelled"]
 
 RULE_DRAWS = 100  # uniform draws tried at least, when generator-only rules are active
 MAX_SEARCHES = 20  # schedules searched at most for best-of when no draw met the rules
+COUNT_SHARE = 0.4  # of the budget, at most, for the exact count
+DRAW_SHARE = 0.6  # of what is left after the count, at most, for the uniform draws
 
 
 @dataclass
@@ -82,23 +84,15 @@ def plan(
     """A schedule for K rounds: uniform draws (best of `draws` by `terms`), or the rule search.
 
     `graph` is the league's clash graph (build_clash_graph). `seed` drives every random
-    choice; draw it with fresh_seed() when the user gave none, and record it."""
+    choice; draw it with fresh_seed() when the user gave none, and record it. With a budget,
+    the exact count may use COUNT_SHARE of it and the draws DRAW_SHARE of what is left; when
+    either does not finish, the rule search (seeded, not uniform) makes the schedule with the
+    rest, and the notes say so."""
     clock = Clock(budget, progress, cancel)
     model = build_model(league, graph, rounds)
     result = PlanResult("impossible", seed, model=model)
     if model.contradictions:
         result.reasons = list(model.contradictions)
-        return result
-    try:
-        result.assignments = model.count(clock.hooks(0.0, 0.3))
-    except engine.BudgetExceeded:
-        result.status = "budget"
-        return result
-    except engine.Cancelled:
-        result.status = "cancelled"
-        return result
-    if result.assignments == 0:
-        result.reasons = [why_none(model, clock)]
         return result
     rules = model.generator
     if rules.active:
@@ -106,27 +100,58 @@ def plan(
         if proofs:
             result.reasons = proofs
             return result
+    notes: list[str] = []
+    try:
+        result.assignments = model.count(clock.hooks(0.0, 0.3, COUNT_SHARE))
+    except engine.Cancelled:
+        result.status = "cancelled"
+        return result
+    except engine.BudgetExceeded:
+        notes.append("the exact count did not finish within its share of the budget, so no "
+                     "uniform draw was made")
+        return _by_search(result, league, model, seed, draws, terms, clock, notes)
+    if result.assignments == 0:
+        result.reasons = [why_none(model, clock)]
+        return result
     rng = random.Random(seed)
     wanted = max(draws, rule_draws) if rules.active else (max(draws, 1) if terms else 1)
     try:
-        drawn = draw_many(model, rng, wanted, clock.hooks(0.3, 0.8))
-    except (engine.BudgetExceeded, engine.Cancelled) as stop:
-        result.status = "cancelled" if isinstance(stop, engine.Cancelled) else "budget"
+        drawn = draw_many(model, rng, wanted, clock.hooks(0.3, 0.8, DRAW_SHARE))
+    except engine.Cancelled:
+        result.status = "cancelled"
         return result
+    except engine.BudgetExceeded:
+        notes.append("the uniform draws did not finish within their share of the budget")
+        return _by_search(result, league, model, seed, draws, terms, clock, notes)
     result.draws = len(drawn)
     kept = [a for a in drawn
             if not rules.active or not check_generator(league, rules, a, rounds)]
-    notes: list[str] = []
     result.draws_met = len(kept)
     if rules.active:
-        notes.insert(0, f"{len(kept)} of {result.draws} draws met every rule")
+        notes.append(f"{len(kept)} of {result.draws} draws met every rule")
     if kept:
         return _finish(result, league, model, kept, "uniform", terms, notes)
+    notes.append("no uniform draw met every rule")
+    return _by_search(result, league, model, seed, draws, terms, clock, notes)
+
+
+def _by_search(
+    result: PlanResult,
+    league: League,
+    model: CountingModel,
+    seed: int,
+    draws: int,
+    terms: dict[str, float] | None,
+    clock: Clock,
+    notes: list[str],
+) -> PlanResult:
+    """The schedule (best of several when scoring) from the rule search."""
     found = _search_fallback(result, model, seed, draws if terms else 1, clock)
     if not found:
+        if result.status == "budget":
+            result.reasons = [*notes, *result.reasons]
         return result
-    notes.append(f"no uniform draw met every rule; {len(found)} schedule(s) came from the "
-                 "rule search, which is not uniform")
+    notes.append(f"{len(found)} schedule(s) came from the rule search, which is not uniform")
     return _finish(result, league, model, found, "search", terms, notes)
 
 

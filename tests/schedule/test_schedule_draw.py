@@ -9,6 +9,7 @@ from collections import Counter
 
 from schedule_helpers import brute, fx, make_league, round_robin, textbook_graph
 
+from leaguegrid import engine
 from leaguegrid.model import Blocked, Settings, Tie
 from leaguegrid.schedule.check import check_schedule
 from leaguegrid.schedule.constraints import build_model
@@ -119,8 +120,8 @@ def test_search_takes_over_when_no_draw_meets_the_rules():
     assert sorted(out.schedule.assignment.values()) == [1, 2, 3, 4, 5, 6]
     assert out.schedule.notes == [
         "0 of 3 draws met every rule",
-        "no uniform draw met every rule; 1 schedule(s) came from the rule search, which is "
-        "not uniform",
+        "no uniform draw met every rule",
+        "1 schedule(s) came from the rule search, which is not uniform",
     ]
     assert plan(lg, g, 6, seed=seed, rule_draws=3).schedule.assignment == \
         out.schedule.assignment
@@ -165,6 +166,39 @@ def test_budget_spent_is_its_own_outcome():
     lg = make_league(round_robin(FOUR))
     out = plan(lg, textbook_graph(lg), 4, seed=1, budget=0.0)
     assert out.status == "budget" and out.schedule is None
+    assert out.reasons == ["the exact count did not finish within its share of the budget, so "
+                           "no uniform draw was made"]
+
+
+def _stopped(*args, **kwargs):
+    raise engine.BudgetExceeded("budget")
+
+
+def test_count_beyond_its_share_hands_over_to_the_search(monkeypatch):
+    lg = make_league(round_robin(FOUR), settings=Settings(max_home_run=2))
+    g = textbook_graph(lg)
+    monkeypatch.setattr(engine, "count_assignments", _stopped)
+    out = plan(lg, g, 3, seed=2, budget=30)
+    assert out.status == "found" and out.schedule.method == "search"
+    assert out.assignments is None and out.draws == 0
+    assert out.schedule.notes == [
+        "the exact count did not finish within its share of the budget, so no uniform draw "
+        "was made",
+        "1 schedule(s) came from the rule search, which is not uniform",
+    ]
+    assert check_schedule(lg, g, out.schedule) == []
+
+
+def test_draws_beyond_their_share_hand_over_to_the_search(monkeypatch):
+    lg = make_league(round_robin(FOUR))
+    g = textbook_graph(lg)
+    monkeypatch.setattr(engine, "sample_assignments", _stopped)
+    out = plan(lg, g, 3, seed=2, budget=30)
+    assert out.status == "found" and out.schedule.method == "search"
+    # K4 has 1 one-factorization (OEIS A000438), in 3! orders of its rounds
+    assert out.assignments == 1 * 6
+    assert out.schedule.notes[0] == ("the uniform draws did not finish within their share of "
+                                     "the budget")
 
 
 def test_best_of_many_keeps_the_best_scoring_draw():

@@ -1,0 +1,142 @@
+"""`leaguegrid plan` and `leaguegrid whatif` end to end on real workbooks."""
+
+from __future__ import annotations
+
+import json
+from pathlib import Path
+
+import networkx as nx
+import pytest
+import sympy
+from openpyxl import load_workbook
+
+from leaguegrid.cli import main
+
+
+def run(capsys, *argv: str) -> tuple[int, str, str]:
+    code = main(list(argv))
+    out, err = capsys.readouterr()
+    return code, out, err
+
+
+def test_plan_six_team_round_robin_is_a_valid_schedule(capsys, round_robin, tmp_path) -> None:
+    book = round_robin(6)
+    out_file = tmp_path / "calendar.xlsx"
+    code, out, _ = run(capsys, "plan", str(book), "--rounds", "5", "--seed", "11",
+                       "--out", str(out_file))
+    assert code == 0
+    # OEIS A000438 (6 one-factorizations of K6) x 5! orderings
+    assert "Valid assignments for 5 rounds: 720 (exact)" in out
+    rows = list(load_workbook(out_file, read_only=True)["Calendar"].iter_rows(values_only=True))
+    header, body = rows[0], rows[1:]
+    col = {name: i for i, name in enumerate(header)}
+    assert len(body) == 15
+    assert len({r[col["Fixture"]] for r in body}) == 15
+    for rnd in range(1, 6):
+        teams = [t for r in body if r[col["Round"]] == rnd for t in (r[col["Home"]],
+                                                                     r[col["Away"]])]
+        assert sorted(teams) == sorted(set(teams)) and len(teams) == 6  # each team once
+
+
+def test_plan_same_seed_same_schedule_and_seed_printed(capsys, round_robin) -> None:
+    book = str(round_robin(6))
+    _, first, _ = run(capsys, "plan", book, "--rounds", "6", "--seed", "2024")
+    _, second, _ = run(capsys, "plan", book, "--rounds", "6", "--seed", "2024")
+    assert first == second
+    code, drawn, _ = run(capsys, "plan", book, "--rounds", "6")
+    assert code == 0
+    seed = drawn.split("seed ", 1)[1].split(" ", 1)[0]
+    assert f"(drawn; --seed {seed} gives this again)" in drawn
+    _, again, _ = run(capsys, "plan", book, "--rounds", "6", "--seed", seed)
+    assert again.splitlines()[2:] == drawn.splitlines()[2:]
+
+
+def test_plan_too_few_rounds_is_proven_impossible(capsys, round_robin) -> None:
+    code, _, err = run(capsys, "plan", str(round_robin(6)), "--rounds", "4", "--seed", "1")
+    assert code == 3
+    assert "No schedule with 4 rounds exists" in err
+
+
+def test_plan_cannot_write_exits_4_and_never_overwrites_input(capsys, round_robin) -> None:
+    book = round_robin(4)
+    before = book.read_bytes()
+    code, _, err = run(capsys, "plan", str(book), "--rounds", "3", "--seed", "1",
+                       "--out", str(book))
+    assert code == 4
+    assert "could not write" in err
+    assert book.read_bytes() == before
+    missing = book.parent / "no such folder" / "cal.xlsx"
+    code, _, _ = run(capsys, "plan", str(book), "--rounds", "3", "--seed", "1",
+                     "--out", str(missing))
+    assert code == 4
+    assert not missing.exists()
+
+
+def test_plan_more_rounds_than_the_rounds_sheet_is_a_usage_error(capsys, workbook) -> None:
+    book = workbook("r.xlsx", {
+        "Fixtures": [("Home", "Away"), ("A", "B")],
+        "Rounds": [("Round", "Date"), (1, None), (2, None)],
+    })
+    code, _, err = run(capsys, "plan", str(book), "--rounds", "3")
+    assert code == 2
+    assert "the Rounds sheet lists 2 rounds; --rounds 3 asks for more" in err
+
+
+def _nx_count(edges: list[tuple[str, str]], nodes: list[str], k: int) -> int:
+    """networkx.chromatic_polynomial (reference library) evaluated at k."""
+    g = nx.Graph()
+    g.add_nodes_from(nodes)
+    g.add_edges_from(edges)
+    poly = nx.chromatic_polynomial(g)
+    return int(poly.subs(sympy.Symbol("x"), k))
+
+
+def test_whatif_matches_networkx_on_the_modified_graph(capsys, workbook) -> None:
+    # Four fixtures; a coach runs teams A and D (Clashes row), so A v B and C v D clash.
+    book = workbook("w.xlsx", {
+        "Fixtures": [("Fixture", "Home", "Away"), ("A v B", "A", "B"), ("B v C", "B", "C"),
+                     ("C v D", "C", "D"), ("D v E", "D", "E")],
+        "Clashes": [("First", "Second", "Reason"), ("team: A", "team: D", "Coach Pell")],
+    })
+    code, out, _ = run(capsys, "whatif", str(book), "--rounds", "3", "--json",
+                       "--add", "A v B,D v E")
+    assert code == 0
+    data = json.loads(out)
+    nodes = ["A v B", "B v C", "C v D", "D v E"]
+    edges = [("A v B", "B v C"), ("B v C", "C v D"), ("C v D", "D v E"),
+             ("A v B", "C v D"), ("A v B", "D v E")]
+    assert data["assignments"] == _nx_count(edges, nodes, 3)
+    coach = next(r for r in data["reasons"] if r["kind"] == "clash")
+    assert coach["reason"] == "Coach Pell (row 2)"
+    assert sorted(map(sorted, coach["edges"])) == [["A v B", "C v D"], ["A v B", "D v E"]]
+    without = [e for e in edges if e not in (("A v B", "C v D"), ("A v B", "D v E"))]
+    assert coach["assignments_if_waived"] == _nx_count(without, nodes, 3)
+    assert coach["gain"] == coach["assignments_if_waived"] - data["assignments"]
+    team_b = next(r for r in data["reasons"] if r["reason"] == "team B")
+    assert team_b["assignments_if_waived"] == _nx_count(
+        [e for e in edges if e != ("A v B", "B v C")], nodes, 3)
+    gains = [r["gain"] for r in data["reasons"]]
+    assert gains == sorted(gains, reverse=True)
+    added = data["added"]
+    assert added["edges"] == []  # A v B and D v E clash already, through the coach
+    assert added["loss"] == 0
+
+
+def test_whatif_add_unknown_name_is_a_usage_error(capsys, round_robin) -> None:
+    code, _, err = run(capsys, "whatif", str(round_robin(4)), "--rounds", "3",
+                       "--add", "Team Q,Team A")
+    assert code == 2
+    assert "'Team Q' is not a fixture, team or venue of this league" in err
+
+
+@pytest.mark.parametrize("argv", [["plan", "--rounds", "3"], ["whatif"]])
+def test_missing_arguments_exit_2(argv: list[str]) -> None:
+    with pytest.raises(SystemExit) as stop:
+        main(argv)
+    assert stop.value.code == 2
+
+
+def test_demo_path_exists() -> None:
+    from leaguegrid.cli import demo_path
+
+    assert Path(demo_path()).is_file()
