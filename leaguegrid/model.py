@@ -222,7 +222,7 @@ class Schedule:
     rounds: int  # K, the number of rounds available
     assignment: dict[str, int]  # fixture label -> round in 1..K
     seed: int | None = None
-    method: str = "uniform"  # "uniform" (exact uniform draw) or "search" (generator rules)
+    method: str = "uniform"  # "uniform" draw, "search" (generator rules), or "edited" by hand
     assignments: int | None = None  # exact P(K) of the model it was drawn from, when known
     rules_counted: list[str] = field(default_factory=list)  # rules the exact counts include
     rules_generator: list[str] = field(default_factory=list)  # rules only the generator enforces

@@ -10,29 +10,21 @@ from leaguegrid import engine
 from leaguegrid.cli import UsageError
 from leaguegrid.io.atomic import ExportError
 from leaguegrid.model import League, Schedule
+from leaguegrid.schedule import score
 from leaguegrid.schedule.dates import DatesError, dated_fixtures
 from leaguegrid.schedule.draw import PlanResult, fresh_seed, plan
-from leaguegrid.schedule.score import TERMS
 
 EXIT = {"found": 0, "impossible": 3, "budget": 5, "cancelled": 5}
 
 
 def parse_terms(text: str | None) -> dict[str, float] | None:
-    """'balance,travel=2' -> {'balance': 1.0, 'travel': 2.0}; None when no terms were given."""
+    """--score 'balance,travel=2' as weights by term; None when no terms were given."""
     if not text:
         return None
-    terms: dict[str, float] = {}
-    for part in text.split(","):
-        name, _, weight = part.strip().partition("=")
-        name = name.strip().lower()
-        if name not in TERMS:
-            raise UsageError(f"unknown score term {name!r}; terms: {', '.join(TERMS)}")
-        try:
-            terms[name] = float(weight) if weight else 1.0
-        except ValueError as err:
-            raise UsageError(f"score term {name!r} needs a number after '=', not {weight!r}") \
-                from err
-    return terms
+    try:
+        return score.parse_terms(text)
+    except ValueError as err:
+        raise UsageError(str(err)) from err
 
 
 def check_round_limit(league: League, rounds: int) -> None:

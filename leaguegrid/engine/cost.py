@@ -1,10 +1,11 @@
 """A cost estimate before any exact work: the largest state table and the seconds expected.
 
-The frontier programme is probed on each piece with a small cap on work. A probe that
-finishes gives the exact table sizes; one that stops early is extrapolated with the
-partition bound (at most Bell(w) states for a frontier of w fixtures, or the partitions
-into at most k classes at fixed k), scaled by how far below that bound the probed layers
-stayed. Seconds come from the probe's own speed. Always an estimate.
+After the exact reductions, the frontier programme is probed on each piece with a small
+cap on work. A probe that finishes gives the exact table sizes; one that stops early is
+extrapolated with the partition bound (at most Bell(w) states for a frontier of w
+fixtures, or the partitions into at most k classes at fixed k), scaled by how far below
+that bound the probed layers stayed. Seconds come from the probe's own speed. Always an
+estimate.
 """
 
 from __future__ import annotations
@@ -14,12 +15,11 @@ from dataclasses import dataclass
 
 import networkx as nx
 
-from .falling import stirling2_rows
 from .frontier import State, _step_masks, successors
 from .graph import Graph, from_networkx
 from .hooks import Ticker
-from .orders import frontier_sizes, greedy_order
-from .solve import pieces
+from .orders import best_order, frontier_sizes, partitions_bound
+from .reductions import plan
 
 PROBE_STATES = 30_000
 POLY_FACTOR = 2.5  # polynomial weights cost about this much more than integer weights
@@ -33,15 +33,9 @@ class Cost:
     seconds: float
 
 
-def _bound(width: int, k: int | None) -> int:
-    """Partitions of `width` fixtures into at most k classes (all partitions when k is None)."""
-    row = stirling2_rows(width)[width]
-    return sum(row if k is None else row[: k + 1])
-
-
 def piece_cost(g: Graph, k: int | None, ticker: Ticker) -> tuple[int, float]:
     """(largest layer, seconds) for one connected piece."""
-    order = greedy_order(g)
+    order = best_order(g, k)
     steps = _step_masks(g, order)
     widths = frontier_sizes(g, order)
     kk = k if k is not None else g.n + 1
@@ -66,8 +60,8 @@ def piece_cost(g: Graph, k: int | None, ticker: Ticker) -> tuple[int, float]:
     rate = elapsed / max(work, 1)
     if done_steps < len(steps):
         w_last = widths[done_steps - 1]
-        scale = len(layer) / max(_bound(w_last, k), 1)
-        rest = [max(1, int(scale * _bound(w, k))) for w in widths[done_steps:]]
+        scale = len(layer) / max(partitions_bound(w_last, k), 1)
+        rest = [max(1, int(scale * partitions_bound(w, k))) for w in widths[done_steps:]]
         largest = max(largest, *rest)
         work += sum(rest)
     factor = POLY_FACTOR if k is None else 1.0
@@ -78,7 +72,7 @@ def estimate_cost(G: nx.Graph, k: int | None = None) -> Cost:
     """Estimated cost of the exact polynomial (k None) or of the count at k rounds."""
     g, _ = from_networkx(G)
     ticker = Ticker()
-    _, parts = pieces(g)
+    parts = plan(g).pieces
     largest = 1
     seconds = 0.0
     for part in parts:

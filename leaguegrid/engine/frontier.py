@@ -11,6 +11,9 @@ with partitions that no later step can tell apart merged into one state.
 
 from __future__ import annotations
 
+import math
+from collections.abc import Callable
+
 from flint import fmpz_poly
 
 from .graph import Graph
@@ -77,105 +80,210 @@ def _alive(state: State, k: int) -> bool:
     return common == 0
 
 
-def count_polynomial(g: Graph, order: list[int], ticker: Ticker) -> fmpz_poly:
-    """P(g, x) for a graph with no self-loop, by the frontier programme over `order`."""
-    n = len(order)
-    lin = [fmpz_poly([-b, 1]) for b in range(n + 1)]
-    layer: dict[State, fmpz_poly] = {(): fmpz_poly([1])}
+def kronecker_bits(edges: int) -> int:
+    """Bits per coefficient that hold every coefficient of a chromatic polynomial with
+    `edges` edges in signed form: |coefficient of k^(n-i)| <= C(edges, i) (Whitney's
+    broken-circuit theorem), plus a sign bit and a spare."""
+    return max(math.comb(edges, i) for i in range(edges + 1)).bit_length() + 2
+
+
+def unpack(value: int, bits: int, degree: int) -> fmpz_poly:
+    """The polynomial whose value at 2^bits is `value` (signed base-2^bits digits)."""
+    mask = (1 << bits) - 1
+    half = 1 << (bits - 1)
+    coeffs = []
+    for _ in range(degree + 1):
+        d = value & mask
+        if d >= half:
+            d -= 1 << bits
+        coeffs.append(d)
+        value = (value - d) >> bits
+    if value:
+        raise ArithmeticError("coefficient bound exceeded in unpacking")
+    return fmpz_poly(coeffs)
+
+
+Check = Callable[[], None]
+
+
+def advance_packed(layer: dict, vb: int, nb: int, shift: int, check: Check) -> dict:
+    """One step with packed-polynomial weights (a new round multiplies by x - b)."""
+    new: dict[State, int] = {}
+    get = new.get
     tick = 0
-    for step, (vb, nb) in enumerate(_step_masks(g, order)):
-        ticker.report(step / n, "counting")
-        new: dict[State, fmpz_poly] = {}
-        get = new.get
-        for state, w in layer.items():
-            tick += 1
-            if tick % CHECK_EVERY == 0:
-                ticker.check()
-            base: list[int] = []
-            joinable: list[int] = []
-            for f in state:
-                if f & vb:
-                    f2 = f ^ vb
-                    if f2:
-                        base.append(f2)
-                else:
-                    joinable.append(len(base))
-                    base.append(f)
-            ns = tuple(sorted([*base, nb])) if nb else tuple(sorted(base))
-            ww = w * lin[len(state)]
+    for state, w in layer.items():
+        tick += 1
+        if tick & 4095 == 0:
+            check()
+        base: list[int] = []
+        joinable: list[int] = []
+        for f in state:
+            if f & vb:
+                f2 = f ^ vb
+                if f2:
+                    base.append(f2)
+            else:
+                joinable.append(len(base))
+                base.append(f)
+        ns = tuple(sorted([*base, nb])) if nb else tuple(sorted(base))
+        ww = (w << shift) - len(state) * w
+        old = get(ns)
+        new[ns] = ww if old is None else old + ww
+        prev = -1
+        for i in joinable:
+            f = base[i]
+            if f == prev:
+                continue
+            prev = f
+            nbase = base[:]
+            nbase[i] = f | nb
+            ns = tuple(sorted(nbase))
+            mult = state.count(f)
+            ww = w * mult if mult > 1 else w
             old = get(ns)
             new[ns] = ww if old is None else old + ww
-            prev = -1
-            for i in joinable:
-                f = base[i]
-                if f == prev:
-                    continue
-                prev = f
-                nbase = base[:]
-                nbase[i] = f | nb
-                ns = tuple(sorted(nbase))
-                mult = state.count(f)
-                ww = w * mult if mult > 1 else w
+    return new
+
+
+def advance_at(layer: dict, vb: int, nb: int, k: int, check: Check) -> dict:
+    """One step with integer weights at k rounds (states needing more rounds dropped, and
+    states in which all k rounds rule out one unplaced fixture)."""
+    new: dict[State, int] = {}
+    get = new.get
+    tick = 0
+    for state, w in layer.items():
+        tick += 1
+        if tick & 4095 == 0:
+            check()
+        base: list[int] = []
+        joinable: list[int] = []
+        for f in state:
+            if f & vb:
+                f2 = f ^ vb
+                if f2:
+                    base.append(f2)
+            else:
+                joinable.append(len(base))
+                base.append(f)
+        b = len(state)
+        if b < k:
+            ns = tuple(sorted([*base, nb])) if nb else tuple(sorted(base))
+            if len(ns) < k or _alive(ns, k):
+                ww = w * (k - b)
                 old = get(ns)
                 new[ns] = ww if old is None else old + ww
-        layer = new
+        full = len(base) == k
+        prev = -1
+        for i in joinable:
+            f = base[i]
+            if f == prev:
+                continue
+            prev = f
+            nbase = base[:]
+            nbase[i] = f | nb
+            ns = tuple(sorted(nbase))
+            if full and not _alive(ns, k):
+                continue
+            mult = state.count(f)
+            ww = w * mult if mult > 1 else w
+            old = get(ns)
+            new[ns] = ww if old is None else old + ww
+    return new
+
+
+def advance_many(layer: dict, vb: int, nb: int, ks: tuple[int, ...], check: Check) -> dict:
+    """One step with one integer weight per k in ks (a weight for k becomes zero once the
+    state has needed more than k rounds); states beyond max(ks) rounds are dropped."""
+    kmax = max(ks)
+    new: dict[State, list[int]] = {}
+    get = new.get
+    tick = 0
+    for state, w in layer.items():
+        tick += 1
+        if tick & 4095 == 0:
+            check()
+        base: list[int] = []
+        joinable: list[int] = []
+        for f in state:
+            if f & vb:
+                f2 = f ^ vb
+                if f2:
+                    base.append(f2)
+            else:
+                joinable.append(len(base))
+                base.append(f)
+        b = len(state)
+        if b < kmax:
+            ns = tuple(sorted([*base, nb])) if nb else tuple(sorted(base))
+            if len(ns) < kmax or _alive(ns, kmax):
+                ww = [x * (k - b) if k > b else 0 for x, k in zip(w, ks, strict=True)]
+                old = get(ns)
+                new[ns] = ww if old is None else [x + y for x, y in zip(old, ww, strict=True)]
+        full = len(base) == kmax
+        prev = -1
+        for i in joinable:
+            f = base[i]
+            if f == prev:
+                continue
+            prev = f
+            nbase = base[:]
+            nbase[i] = f | nb
+            ns = tuple(sorted(nbase))
+            if full and not _alive(ns, kmax):
+                continue
+            mult = state.count(f)
+            ww = [x * mult for x in w] if mult > 1 else w
+            old = get(ns)
+            new[ns] = ww if old is None else [x + y for x, y in zip(old, ww, strict=True)]
+    return new
+
+
+ADVANCE = {"packed": advance_packed, "at": advance_at, "many": advance_many}
+
+
+def run(g: Graph, order: list[int], mode: str, param: object, one: object, ticker: Ticker):
+    """Run the programme over `order` with the step function of `mode`: the final weight,
+    or None when every state died."""
+    advance = ADVANCE[mode]
+    steps = _step_masks(g, order)
+    n = len(steps)
+    layer: dict = {(): one}
+    for i, (vb, nb) in enumerate(steps):
+        ticker.report(i / max(n, 1), "counting")
+        layer = advance(layer, vb, nb, param, ticker.check)
+        if not layer:
+            return None
     ticker.report(1.0, "counting")
-    return layer[()]
+    return layer.get(())
+
+
+def count_polynomial(g: Graph, order: list[int], ticker: Ticker) -> fmpz_poly:
+    """P(g, x) for a graph with no self-loop, by the frontier programme over `order`.
+
+    Weights are polynomials packed into integers (Kronecker substitution x = 2^B): every
+    operation of the programme is a ring operation, so the final integer is exactly
+    P(2^B), from which the coefficients are read back; B is chosen so that every final
+    coefficient fits. Integer arithmetic on the packed form is several times cheaper than
+    polynomial objects.
+    """
+    shift = kronecker_bits(g.edges())
+    packed = run(g, order, "packed", shift, 1, ticker)
+    return unpack(packed or 0, shift, len(order))
 
 
 def count_at(g: Graph, order: list[int], k: int, ticker: Ticker) -> int:
-    """P(g, k) as an exact integer; states needing more than k rounds are dropped."""
-    n = len(order)
+    """P(g, k) as an exact integer."""
     if k <= 0:
-        return 1 if n == 0 else 0
-    layer: dict[State, int] = {(): 1}
-    tick = 0
-    for step, (vb, nb) in enumerate(_step_masks(g, order)):
-        ticker.report(step / n, "counting")
-        new: dict[State, int] = {}
-        get = new.get
-        for state, w in layer.items():
-            tick += 1
-            if tick % CHECK_EVERY == 0:
-                ticker.check()
-            base: list[int] = []
-            joinable: list[int] = []
-            for f in state:
-                if f & vb:
-                    f2 = f ^ vb
-                    if f2:
-                        base.append(f2)
-                else:
-                    joinable.append(len(base))
-                    base.append(f)
-            b = len(state)
-            if b < k:
-                ns = tuple(sorted([*base, nb])) if nb else tuple(sorted(base))
-                if len(ns) < k or _alive(ns, k):
-                    ww = w * (k - b)
-                    old = get(ns)
-                    new[ns] = ww if old is None else old + ww
-            prev = -1
-            for i in joinable:
-                f = base[i]
-                if f == prev:
-                    continue
-                prev = f
-                nbase = base[:]
-                nbase[i] = f | nb
-                ns = tuple(sorted(nbase))
-                if len(ns) == k and not _alive(ns, k):
-                    continue
-                mult = state.count(f)
-                ww = w * mult if mult > 1 else w
-                old = get(ns)
-                new[ns] = ww if old is None else old + ww
-        layer = new
-        if not layer:
-            ticker.report(1.0, "counting")
-            return 0
-    ticker.report(1.0, "counting")
-    return layer.get((), 0)
+        return 1 if not order else 0
+    return run(g, order, "at", k, 1, ticker) or 0
+
+
+def count_many(g: Graph, order: list[int], ks: list[int], ticker: Ticker) -> list[int]:
+    """P(g, k) for every k in `ks` in one pass."""
+    if max(ks, default=0) <= 0:
+        return [1 if not order else 0 for _ in ks]
+    out = run(g, order, "many", tuple(ks), [1] * len(ks), ticker)
+    return out if out is not None else [0] * len(ks)
 
 
 def completion_tables(

@@ -36,10 +36,7 @@ class Plan:
 
 def is_clique(g: Graph, mask: int) -> bool:
     """True when the vertices in `mask` are pairwise adjacent."""
-    for u in bits(mask):
-        if (mask & ~(1 << u)) & ~g.adj[u]:
-            return False
-    return True
+    return all(not (mask & ~(1 << u)) & ~g.adj[u] for u in bits(mask))
 
 
 def peel_simplicial(g: Graph) -> tuple[list[int], int]:

@@ -198,6 +198,8 @@ def model_from_clashes(
     league: League, clashes: nx.Graph, rounds: int, use_return_half: bool = True
 ) -> CountingModel:
     """The counting model on a fixture-level clash graph that already holds the splits."""
+    if rounds < 1:
+        raise ValueError(f"the number of rounds must be a positive whole number, not {rounds}")
     node_of, members = tie_groups(league)
     contradictions: list[str] = []
     notes: list[str] = []
@@ -384,7 +386,7 @@ def fewest_rounds(model: CountingModel, hooks: engine.Hooks | None = None) -> in
                             hooks=hooks)
     if return_half(league, top) is None:
         return low
-    for k in range(low, 2 * top + 1):
+    for k in range(max(low, 1), 2 * top + 1):
         m = model_from_clashes(league, model.clashes, k)
         if not m.contradictions and m.count(hooks) > 0:
             return k

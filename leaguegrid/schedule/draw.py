@@ -1,11 +1,12 @@
 """Schedules for K rounds: exact uniform draws, best of many, and the rule search as fallback.
 
 Without generator-only rules, each draw is exactly uniform over the valid assignments of the
-counting model (engine.sample_assignment). With them, draws are made the same way and those
+counting model (engine.sample_assignments). With them, draws are made the same way and those
 that meet every rule are kept: a kept draw is uniform over the schedules meeting the rules, and
-the share kept shows how tight the rules are. When no draw meets them, the backtracking search
-(search.py) takes over. One seed drives everything: the same league, seed and version give the
-same schedule.
+the share kept shows how tight the rules are. When no draw meets them, or the exact count or
+the draws do not finish within their share of the budget, the backtracking search (search.py)
+takes over and the schedule's notes say so. One seed drives everything: the same league, seed
+and version give the same schedule (within the same budget outcome).
 """
 
 from __future__ import annotations
@@ -220,8 +221,13 @@ def why_none(model: CountingModel, clock: Clock | None = None) -> str:
         fewest = model.fewest_rounds(clock.hooks(0.3, 0.4) if clock is not None else None)
     except (engine.BudgetExceeded, engine.Cancelled):
         return f"{head} (the fewest rounds needed was not found within the budget)"
-    extras = bool(model.pins or model.exclusions or model.league.ties)
-    what = "the clashes" + (" with the pins, ties and blocked rounds" if extras else "")
+    extras = [name for name, present in (
+        ("pins", model.pins), ("ties", model.league.ties), ("blocked rounds", model.league.blocked),
+        ("Return half", model.half is not None)) if present]
+    what = "the clashes"
+    if extras:
+        what += " with the " + (", ".join(extras[:-1]) + " and " + extras[-1]
+                                if len(extras) > 1 else extras[0])
     if fewest is None:
         return f"{head}, and no number of rounds works for {what}"
     if fewest > k:

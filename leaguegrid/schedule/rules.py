@@ -1,9 +1,15 @@
 """Rules the clash graph cannot express, enforced by the schedule generator only.
 
-Venue capacity (a venue with N > 1 pitches and no Pitch column hosts at most N fixtures a
-round), the longest run of home or away fixtures for a team, and round balance. Each rule
-checks a complete schedule, and `prove_impossible` finds the cases where counting alone
-proves that no schedule can meet it, naming where it bites.
+- venue capacity: a venue of the Venues sheet with Pitches N > 1, where some fixture gives no
+  pitch (no Pitch column), hosts at most N fixtures a round; the clash graph has no venue
+  edges there (a fixture that names a pitch still clashes with that pitch's fixtures);
+- max home run / max away run: a team's fixtures in round order (its Home/Away column) hold no
+  more than that many home (away) fixtures in a row; a round without a fixture for the team (a
+  bye) neither breaks nor extends a run;
+- round balance: over all K rounds, empty ones included, the fullest and emptiest round differ
+  by at most that many fixtures.
+Each rule checks a complete schedule, and `prove_impossible` finds the cases where counting
+alone proves that no schedule can meet it, naming where it bites.
 """
 
 from __future__ import annotations

@@ -80,12 +80,13 @@ class BestOf:
 
 
 def parse_terms(text: str) -> dict[str, float]:
-    """'balance,travel:0.5' -> {'balance': 1.0, 'travel': 0.5}; ValueError names a bad term."""
+    """'balance,travel:0.5' (or 'travel=0.5') -> {'balance': 1.0, 'travel': 0.5}; ValueError
+    names a bad term or weight."""
     out: dict[str, float] = {}
     for part in (p.strip() for p in text.split(",")):
         if not part:
             continue
-        name, _, weight = part.partition(":")
+        name, _, weight = part.replace("=", ":").partition(":")
         name = name.strip().lower()
         if name not in TERMS:
             raise ValueError(f"unknown score term {name!r}; terms: {', '.join(TERMS)}")

@@ -3,10 +3,11 @@
 Fewest-options-first: the node with the fewest rounds left goes next (ties: most clashes,
 then a seeded random key); its rounds are tried in a seeded random order. Forward checking
 removes a round from a node's options when a clash, a venue's pitches or the round-balance
-ceiling rules it out; counting checks cut runs of home or away fixtures that nothing can
-break any more and rounds that can no longer be filled. Restarts with doubling step limits
-keep one unlucky early choice from eating the budget; a run that finishes within its limit
-has tried every option, so its "no schedule" is a proof.
+ceiling rules it out; a pigeonhole check on each clique (a team's fixtures) forces a round
+only one fixture can still take; counting checks cut runs of home or away fixtures that nothing
+can break any more and rounds that can no longer be filled. Restarts with step limits from the
+Luby sequence keep one unlucky early choice from eating the budget; a run that finishes within
+its limit has tried every option, so its "no schedule" is a proof.
 """
 
 from __future__ import annotations
@@ -30,7 +31,22 @@ from leaguegrid.schedule.rules import (
 Status = Literal["found", "impossible", "budget", "cancelled"]
 Progress = Callable[[float, str], None]
 
-FIRST_LIMIT = 2000  # steps in the first run; each restart doubles it
+RESTART_UNIT = 1000  # steps; run i may take RESTART_UNIT x luby(i) steps
+
+
+def luby(i: int) -> int:
+    """The i-th term (from 1) of the Luby restart sequence 1 1 2 1 1 2 4 1 1 2 ... (Luby,
+    Sinclair and Zuckerman, 1993): short runs often, longer runs ever more rarely, so heavy
+    tails are cut while every limit, however large, is reached in time."""
+    k = 1
+    while (1 << k) - 1 < i:
+        k += 1
+    while i != (1 << k) - 1:
+        i -= (1 << (k - 1)) - 1
+        k = 1
+        while (1 << k) - 1 < i:
+            k += 1
+    return 1 << (k - 1)
 
 
 @dataclass
@@ -62,6 +78,12 @@ class _State:
         self.n = len(self.nodes)
         counted = model.counted()
         self.adj = [[index[u] for u in counted[v]] for v in self.nodes]
+        self.cliques = _cliques(model, index)
+        self.node_cliques: list[list[int]] = [[] for _ in self.nodes]
+        for ci, members in enumerate(self.cliques):
+            for i in members:
+                self.node_cliques[i].append(ci)
+        self.touched: set[int] = set()
         self.size = [len(model.members[v]) for v in self.nodes]
         self.fixtures = sum(self.size)
         order = {f.label: i for i, f in enumerate(model.league.fixtures)}
@@ -137,6 +159,7 @@ class _State:
             self.dom[j].discard(r)
             self.avail[r] -= self.size[j]
             self.trail.append(("d", j, r))
+            self.touched.add(j)
             return bool(self.dom[j])
         return True
 
@@ -151,6 +174,7 @@ class _State:
         for q in self.dom[i]:
             self.avail[q] -= self.size[i]
         self.trail.append(("v", i, r))
+        self.touched = {i}
         for j in self.adj[i]:
             if not self.val[j] and not self._drop(j, r):
                 return False
@@ -166,7 +190,34 @@ class _State:
                     return False
             if not self._fillable():
                 return False
+        if not self._cliques_hold():
+            return False
         return all(self._runs_open(t) for t in self.node_teams[i])
+
+    def _cliques_hold(self) -> bool:
+        """Pigeonhole on each clash clique (a team's or a pitch's fixtures) touched by this
+        step: its unplaced fixtures need as many distinct rounds; when the rounds left are
+        exactly enough, a round only one of them can take is forced on it."""
+        queue = {ci for j in self.touched for ci in self.node_cliques[j]}
+        while queue:
+            members = self.cliques[queue.pop()]
+            open_ = [j for j in members if not self.val[j]]
+            if not open_:
+                continue
+            takers: dict[int, int] = {}  # round -> the one node that can take it, or -1
+            for j in open_:
+                for r in self.dom[j]:
+                    takers[r] = -1 if r in takers else j
+            if len(takers) < len(open_):
+                return False
+            if len(takers) > len(open_):
+                continue
+            for r, j in takers.items():
+                if j >= 0 and len(self.dom[j]) > 1:
+                    for q in [q for q in self.dom[j] if q != r]:
+                        self._drop(j, q)
+                    queue.update(self.node_cliques[j])
+        return True
 
     def _fillable(self) -> bool:
         """Can every round still reach the fewest fixtures round balance allows?"""
@@ -217,6 +268,23 @@ class _State:
         return self.model.expand({v: self.val[i] for i, v in enumerate(self.nodes)})
 
 
+def _cliques(model: CountingModel, index: dict[str, int]) -> list[list[int]]:
+    """Groups of nodes that pairwise clash, one per team, venue or shared value whose edges
+    form a clique (a team plays once a round), as node indices; pairs of one are left out."""
+    groups: dict[object, set[str]] = {}
+    for u, v, data in model.graph.edges(data=True):
+        for reason in data.get("reasons", []):
+            if reason.kind in ("team", "venue", "shared"):
+                groups.setdefault(reason, set()).update((u, v))
+    out = []
+    for nodes in groups.values():
+        members = sorted(nodes, key=index.__getitem__)
+        if all(model.graph.has_edge(a, b) for k, a in enumerate(members)
+               for b in members[k + 1:]):
+            out.append([index[v] for v in members])
+    return out
+
+
 def search(
     model: CountingModel,
     rng: random.Random,
@@ -242,10 +310,10 @@ def search(
     deadline = None if budget is None else started + budget
     state = _State(model, rules)
     steps = restarts = 0
-    limit = FIRST_LIMIT
     deepest = 0
     while True:
         try:
+            limit = RESTART_UNIT * luby(restarts + 1)
             found, used, depth = _run(state, rng, limit, deadline, cancel, progress, deepest)
         except _Stop as stop:
             return SearchResult(stop.status, steps=steps, restarts=restarts,
@@ -258,7 +326,6 @@ def search(
         if used <= limit:
             break
         restarts += 1
-        limit *= 2
     tried = f"the search tried every option, {steps} steps"
     if not rules.names:
         reasons = [f"no schedule meets the clashes, pins and blocked rounds ({tried})"]

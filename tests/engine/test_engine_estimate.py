@@ -7,7 +7,7 @@ import networkx as nx
 from leaguegrid.engine import Cost, count_assignments, estimate_assignments, estimate_cost
 from leaguegrid.engine.frontier import _step_masks, successors
 from leaguegrid.engine.graph import from_networkx
-from leaguegrid.engine.orders import greedy_order
+from leaguegrid.engine.orders import best_order
 
 
 def test_estimate_is_labelled_and_brackets_exact_count() -> None:
@@ -16,8 +16,11 @@ def test_estimate_is_labelled_and_brackets_exact_count() -> None:
         exact = count_assignments(G, k)
         est = estimate_assignments(G, k)
         assert est.method.startswith("sequential importance sampling, 2000 draws")
-        assert est.low <= exact <= est.high
-        assert abs(est.value - exact) <= exact // 5
+        # The interval is about 95%: allow three half-widths (seeded, so deterministic).
+        half = max(est.high - est.value, est.value - est.low)
+        assert est.low <= est.value <= est.high
+        assert abs(est.value - exact) <= 3 * half
+        assert abs(est.value - exact) <= exact // 20
 
 
 def test_estimate_with_pins_and_impossible_cases() -> None:
@@ -38,7 +41,7 @@ def test_estimate_with_no_valid_draw_reports_proven_ceiling() -> None:
 def test_cost_of_small_graph_is_its_largest_table() -> None:
     G = nx.line_graph(nx.complete_graph(6))
     g, _ = from_networkx(G)
-    order = greedy_order(g)
+    order = best_order(g)
     layer, largest = {()}, 1
     for vb, nb in _step_masks(g, order):
         layer = {ns for s in layer for ns, _ in successors(s, vb, nb, g.n + 1)}

@@ -8,6 +8,7 @@ import random
 
 import networkx as nx
 import pytest
+from flint import fmpz_poly
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
@@ -18,7 +19,7 @@ from leaguegrid.engine import (
     groupings,
 )
 from leaguegrid.engine.falling import from_falling
-from leaguegrid.engine.frontier import count_at, count_polynomial
+from leaguegrid.engine.frontier import count_at, count_many, count_polynomial
 from leaguegrid.engine.graph import from_networkx
 from leaguegrid.engine.hooks import Ticker
 
@@ -84,6 +85,8 @@ def test_every_vertex_order_agrees(G: nx.Graph, rnd: random.Random) -> None:
     assert p == chromatic_polynomial(G)
     for k in range(0, 5):
         assert count_at(g, order, k, ticker) == p(k)
+    ks = list(range(0, g.n + 2))
+    assert count_many(g, order, ks, ticker) == [p(k) for k in ks]
 
 
 @settings(max_examples=15, deadline=None)
@@ -98,3 +101,56 @@ def test_agrees_with_networkx(G: nx.Graph) -> None:
         return
     for k in range(0, 6):
         assert p(k) == int(ref.eval(k))
+
+
+@SETTINGS
+@given(graphs(max_n=10))
+def test_reductions_agree_with_plain_programme(G: nx.Graph) -> None:
+    # Simplicial vertices, components and clique separators change nothing in the result.
+    from leaguegrid.engine import solve
+
+    g, _ = from_networkx(G)
+    ticker = Ticker()
+    p = solve.polynomial(g, ticker, reduce=True)
+    assert p == solve.polynomial(g, ticker, reduce=False)
+    for k in range(0, 5):
+        assert solve.value(g, k, ticker, reduce=True) == p(k)
+
+
+@SETTINGS
+@given(st.integers(2, 6), st.integers(2, 14), st.randoms(use_true_random=False))
+def test_chordal_graphs_need_no_search(width: int, n: int, rnd: random.Random) -> None:
+    # A random graph built by adding vertices joined to a clique is chordal: the simplicial
+    # peel solves it; P = prod (k - d) over the attachment clique sizes (textbook).
+    from leaguegrid.engine.reductions import plan
+
+    G = nx.complete_graph(1)
+    sizes = [0]
+    for v in range(1, n):
+        anchor = rnd.choice(list(nx.find_cliques(G)))
+        attach = rnd.sample(anchor, min(len(anchor), rnd.randint(0, width)))
+        G.add_node(v)
+        G.add_edges_from((v, u) for u in attach)
+        sizes.append(len(attach))
+    g, _ = from_networkx(G)
+    assert plan(g).pieces == []
+    x = fmpz_poly([0, 1])
+    expect = fmpz_poly([1])
+    for d in sizes:
+        expect *= x - d
+    assert chromatic_polynomial(G) == expect
+
+
+def test_clique_separator_split() -> None:
+    # Two wheels glued on a triangle: P = P(W1) P(W2) / (k (k-1) (k-2)) (textbook gluing).
+    from leaguegrid.engine.reductions import plan
+
+    a = nx.wheel_graph(6)
+    b = nx.relabel_nodes(nx.wheel_graph(7), {0: 0, 1: 1, 2: 2, **{i: 10 + i for i in range(3, 7)}})
+    G = nx.compose(a, b)
+    assert {0, 1, 2} <= set(a) & set(b)
+    g, _ = from_networkx(G)
+    assert plan(g).divisors
+    pa, pb = chromatic_polynomial(a), chromatic_polynomial(b)
+    tri = chromatic_polynomial(nx.complete_graph(3))
+    assert chromatic_polynomial(G) == pa * pb // tri

@@ -137,13 +137,13 @@ def test_too_few_rounds_is_impossible_and_says_the_fewest():
     ]
 
 
-def test_too_few_rounds_with_pins_says_so():
+def test_too_few_rounds_with_blocked_rounds_says_so():
     lg = make_league(round_robin(FOUR))
     lg.blocked = [Blocked(1, team="Ash", row=2)]
     out = plan(lg, textbook_graph(lg), 3, seed=1)
     assert out.reasons == [
-        "no valid assignment of the fixtures to 3 rounds exists: the clashes with the pins, "
-        "ties and blocked rounds need at least 4 rounds"
+        "no valid assignment of the fixtures to 3 rounds exists: the clashes with the blocked "
+        "rounds need at least 4 rounds"
     ]
 
 
@@ -213,3 +213,21 @@ def test_best_of_many_keeps_the_best_scoring_draw():
     assert out.score.total == best.card.total
     assert min(c.total for c in best.cards) == best.card.total
     assert out.schedule.notes[-1] == f"best of 30 schedules by balance (schedule {best.index + 1})"
+
+
+def test_too_few_rounds_names_every_extra_constraint():
+    lg = make_league(round_robin(FOUR))
+    lg.fixtures[0].pin = 1
+    lg.ties = [Tie("Ash v Birch", "Cedar v Daisy", row=2)]
+    lg.blocked = [Blocked(1, team="Cedar", row=2)]
+    out = plan(lg, textbook_graph(lg), 3, seed=1)
+    assert out.reasons == [
+        "Cedar v Daisy is tied to Ash v Birch, pinned to round 1, but team Cedar is blocked in "
+        "round 1 (Blocked row 2)"
+    ]
+    lg.blocked = [Blocked(2, team="Cedar", row=2)]
+    out = plan(lg, textbook_graph(lg), 3, seed=1)
+    assert out.reasons == [
+        "no valid assignment of the fixtures to 3 rounds exists: the clashes with the pins, "
+        "ties and blocked rounds need at least 4 rounds"
+    ]

@@ -122,6 +122,7 @@ def test_best_of_divides_each_term_by_its_mean_and_keeps_the_lowest():
 
 def test_parse_terms():
     assert parse_terms("balance, travel:0.5") == {"balance": 1.0, "travel": 0.5}
+    assert parse_terms("Rest=2") == {"rest": 2.0}
     with pytest.raises(ValueError, match="unknown score term 'speed'; terms: balance, "
                                          "alternation, spread, slots, rest, travel"):
         parse_terms("speed")
