@@ -11,12 +11,15 @@ import sys
 from collections.abc import Sequence
 from pathlib import Path
 
+import networkx as nx
+
 from leaguegrid import __version__
 from leaguegrid.clifmt import (
     print_check,
     print_counts,
     print_problems,
 )
+from leaguegrid.model import League
 
 OK, INPUT_PROBLEMS, USAGE, IMPOSSIBLE, WRITE_FAILED, STOPPED = 0, 1, 2, 3, 4, 5
 COMMANDS = ("check", "count", "plan", "whatif")
@@ -89,7 +92,7 @@ def build_parser() -> argparse.ArgumentParser:
     return parser
 
 
-def load(path: Path):
+def load(path: Path) -> tuple[League, nx.Graph] | None:
     """Read a league; print its problems to stderr. Returns (league, graph) or None."""
     from leaguegrid.clashgraph import build_clash_graph
     from leaguegrid.io.league_reader import load_league
@@ -118,28 +121,45 @@ def cmd_count(args: argparse.Namespace) -> int:
     if loaded is None:
         return INPUT_PROBLEMS
     league, graph = loaded
-    limit = len(league.rounds) if league.rounds_fixed else None
     rounds = None
     if args.rounds is not None:
-        a, b = args.rounds
-        if limit is not None and b > limit:
-            raise UsageError(f"the Rounds sheet lists {limit} rounds; --rounds {b} asks for more")
-        rounds = list(range(a, b + 1))
+        first, last = args.rounds
+        check_round_limit(league, last)
+        rounds = list(range(first, last + 1))
     report = count_report(league, graph, rounds=rounds, budget=args.budget)
     print_counts(report, league, sys.stdout, as_json=args.json)
     return OK if report.complete else STOPPED
 
 
+def check_round_limit(league: League, rounds: int) -> None:
+    """A Rounds sheet lists every round there is: asking for more is a usage error."""
+    if rounds < 1:
+        raise UsageError(f"--rounds must be a positive whole number, not {rounds}")
+    if league.rounds_fixed and rounds > len(league.rounds):
+        raise UsageError(f"the Rounds sheet lists {len(league.rounds)} rounds; "
+                         f"--rounds {rounds} asks for more")
+
+
+def load_for_rounds(args: argparse.Namespace) -> tuple[League, nx.Graph] | None:
+    """Read the league of a plan or whatif command and check its --rounds; None on problems."""
+    loaded = load(args.file)
+    if loaded is not None:
+        check_round_limit(loaded[0], args.rounds)
+    return loaded
+
+
 def cmd_plan(args: argparse.Namespace) -> int:
     from leaguegrid.planning import run_plan
 
-    return run_plan(args, load)
+    loaded = load_for_rounds(args)
+    return INPUT_PROBLEMS if loaded is None else run_plan(args, *loaded)
 
 
 def cmd_whatif(args: argparse.Namespace) -> int:
     from leaguegrid.planning import run_whatif
 
-    return run_whatif(args, load)
+    loaded = load_for_rounds(args)
+    return INPUT_PROBLEMS if loaded is None else run_whatif(args, *loaded)
 
 
 def open_window(path: Path | None) -> int:

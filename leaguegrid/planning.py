@@ -6,6 +6,8 @@ import argparse
 import json
 import sys
 
+import networkx as nx
+
 from leaguegrid import engine
 from leaguegrid.cli import UsageError
 from leaguegrid.io.atomic import ExportError
@@ -27,15 +29,6 @@ def parse_terms(text: str | None) -> dict[str, float] | None:
         raise UsageError(str(err)) from err
 
 
-def check_round_limit(league: League, rounds: int) -> None:
-    """A Rounds sheet lists every round there is: asking for more is a usage error."""
-    if rounds < 1:
-        raise UsageError(f"--rounds must be a positive whole number, not {rounds}")
-    if league.rounds_fixed and rounds > len(league.rounds):
-        raise UsageError(f"the Rounds sheet lists {len(league.rounds)} rounds; "
-                         f"--rounds {rounds} asks for more")
-
-
 def print_schedule(league: League, schedule: Schedule) -> None:
     """The schedule round by round, with dates and times where the league gives them."""
     rows = dated_fixtures(league, schedule)
@@ -55,13 +48,8 @@ def print_schedule(league: League, schedule: Schedule) -> None:
         print(f"\nEmpty rounds: {', '.join(map(str, empty))}")
 
 
-def run_plan(args: argparse.Namespace, load) -> int:
+def run_plan(args: argparse.Namespace, league: League, graph: nx.Graph) -> int:
     """`leaguegrid plan`: one schedule for K rounds, printed and optionally exported."""
-    loaded = load(args.file)
-    if loaded is None:
-        return 1
-    league, graph = loaded
-    check_round_limit(league, args.rounds)
     terms = parse_terms(args.score)
     if args.draws < 1:
         raise UsageError(f"--draws must be at least 1, not {args.draws}")
@@ -110,7 +98,7 @@ def _report_failure(result: PlanResult, rounds: int) -> int:
     return EXIT[result.status]
 
 
-def _export(args: argparse.Namespace, league: League, graph, result: PlanResult) -> int:
+def _export(args: argparse.Namespace, league: League, graph: nx.Graph, result: PlanResult) -> int:
     """Write the files asked for; exit 4 when one cannot be written."""
     from leaguegrid.io.calendar_xlsx import CalendarSummary, write_calendar_xlsx
     from leaguegrid.io.csv_out import write_schedule_csv
@@ -167,15 +155,10 @@ def parse_add(text: str | None) -> tuple[str, str] | None:
     return first.strip(), second.strip()
 
 
-def run_whatif(args: argparse.Namespace, load) -> int:
+def run_whatif(args: argparse.Namespace, league: League, graph: nx.Graph) -> int:
     """`leaguegrid whatif`: every clash reason ranked by what waiving it would add."""
     from leaguegrid.schedule.whatif import whatif
 
-    loaded = load(args.file)
-    if loaded is None:
-        return 1
-    league, graph = loaded
-    check_round_limit(league, args.rounds)
     add = parse_add(args.add)
     try:
         report = whatif(league, graph, args.rounds, add=add, budget=args.budget)

@@ -8,6 +8,8 @@ from pathlib import Path
 import pytest
 from openpyxl import Workbook
 
+from leaguegrid.cli import main
+
 DEMO = Path(__file__).resolve().parents[2] / "demo_leagues"
 
 
@@ -21,6 +23,18 @@ def write_workbook(path: Path, sheets: dict[str, Sequence[Sequence[object]]]) ->
             ws.append(list(row))
     wb.save(path)
     return path
+
+
+@pytest.fixture
+def cli(capsys):
+    """Run the command line in-process: cli(*argv) -> (exit code, stdout, stderr)."""
+
+    def run(*argv: str) -> tuple[int, str, str]:
+        code = main(list(argv))
+        out, err = capsys.readouterr()
+        return code, out, err
+
+    return run
 
 
 @pytest.fixture

@@ -10,16 +10,10 @@ import pytest
 from leaguegrid.cli import main
 
 
-def run(capsys, *argv: str) -> tuple[int, str, str]:
-    code = main(list(argv))
-    out, err = capsys.readouterr()
-    return code, out, err
-
-
-def test_count_six_team_round_robin_matches_one_factorizations(capsys, round_robin) -> None:
+def test_count_six_team_round_robin_matches_one_factorizations(cli, round_robin) -> None:
     # OEIS A000438: K6 has 6 one-factorizations, so a 6-team single round-robin can be split
     # into 5 rounds in 6 ways (groupings), and P(5) = 6 x 5!.
-    code, out, _ = run(capsys, "count", str(round_robin(6)), "--rounds", "5", "--json")
+    code, out, _ = cli("count", str(round_robin(6)), "--rounds", "5", "--json")
     assert code == 0
     data = json.loads(out)
     assert data["fixtures"] == 15
@@ -29,7 +23,7 @@ def test_count_six_team_round_robin_matches_one_factorizations(capsys, round_rob
                                "all_rounds_used": 6 * 120, "groupings": 6}]
 
 
-def test_count_default_range_and_polynomial_of_a_path(capsys, workbook) -> None:
+def test_count_default_range_and_polynomial_of_a_path(cli, workbook) -> None:
     # Three fixtures in a chain of clashes form a path: P(k) = k (k - 1)^2 (trees, textbook).
     book = workbook("path.xlsx", {"Fixtures": [
         ("Fixture", "Home", "Away"),
@@ -37,7 +31,7 @@ def test_count_default_range_and_polynomial_of_a_path(capsys, workbook) -> None:
         ("B v C", "B", "C"),
         ("C v D", "C", "D"),
     ]})
-    code, out, _ = run(capsys, "count", str(book), "--json")
+    code, out, _ = cli("count", str(book), "--json")
     assert code == 0
     data = json.loads(out)
     assert data["min_rounds"] == 2
@@ -48,12 +42,12 @@ def test_count_default_range_and_polynomial_of_a_path(capsys, workbook) -> None:
         assert row["assignments"] == k * (k - 1) ** 2
     # groupings: 2 rounds -> 1 way ({AB, CD} | {BC}); 3 rounds -> 1 way (each alone)
     assert [row["groupings"] for row in data["counts"]] == [1, 1, 0, 0, 0]
-    code, out, _ = run(capsys, "count", str(book))
+    code, out, _ = cli("count", str(book))
     assert "Chromatic polynomial: k (k - 1)^2" in out
     assert "Fewest rounds: 2" in out
 
 
-def test_count_with_pin_divides_by_symmetry(capsys, workbook) -> None:
+def test_count_with_pin_divides_by_symmetry(cli, workbook) -> None:
     # A triangle of clashes with one fixture pinned to round 3: of the k(k-1)(k-2) assignments,
     # exactly 1/k put that fixture in round 3 (symmetry of rounds), so (k-1)(k-2) remain.
     book = workbook("pin.xlsx", {"Fixtures": [
@@ -62,7 +56,7 @@ def test_count_with_pin_divides_by_symmetry(capsys, workbook) -> None:
         ("A v C", "A", "C", None),
         ("B v C", "B", "C", None),
     ]})
-    code, out, _ = run(capsys, "count", str(book), "--rounds", "2..5", "--json")
+    code, out, _ = cli("count", str(book), "--rounds", "2..5", "--json")
     assert code == 0
     data = json.loads(out)
     assert data["pinned"] is True
@@ -73,25 +67,25 @@ def test_count_with_pin_divides_by_symmetry(capsys, workbook) -> None:
     assert data["polynomial"] == [0, 2, -3, 1]  # the graph's own polynomial, pins aside
 
 
-def test_count_rejects_more_rounds_than_the_rounds_sheet(capsys, workbook) -> None:
+def test_count_rejects_more_rounds_than_the_rounds_sheet(cli, workbook) -> None:
     book = workbook("r.xlsx", {
         "Fixtures": [("Home", "Away"), ("A", "B")],
         "Rounds": [("Round", "Date"), (1, None), (2, None)],
     })
-    code, _, err = run(capsys, "count", str(book), "--rounds", "1..3")
+    code, _, err = cli("count", str(book), "--rounds", "1..3")
     assert code == 2
     assert "the Rounds sheet lists 2 rounds; --rounds 3 asks for more" in err
 
 
-def test_count_usage_error_on_bad_range(capsys, round_robin) -> None:
+def test_count_usage_error_on_bad_range(cli, round_robin) -> None:
     with pytest.raises(SystemExit) as stop:
         main(["count", str(round_robin(4)), "--rounds", "5..3"])
     assert stop.value.code == 2
 
 
-def test_count_budget_exhausted_exits_5_and_marks_rows(capsys, demo) -> None:
+def test_count_budget_exhausted_exits_5_and_marks_rows(cli, demo) -> None:
     # bigseason's full polynomial is far beyond a 0.5 s budget
-    code, out, _ = run(capsys, "count", str(demo / "bigseason.xlsx"), "--budget", "0.5",
+    code, out, _ = cli("count", str(demo / "bigseason.xlsx"), "--budget", "0.5",
                        "--json")
     assert code == 5
     data = json.loads(out)
@@ -100,27 +94,27 @@ def test_count_budget_exhausted_exits_5_and_marks_rows(capsys, demo) -> None:
     assert any(row["exact"] is False for row in data["counts"]) or data["min_rounds"] is None
 
 
-def test_check_reports_input_problems_with_exit_1(capsys, workbook) -> None:
+def test_check_reports_input_problems_with_exit_1(cli, workbook) -> None:
     book = workbook("bad.xlsx", {"Fixtures": [
         ("Home", "Away"),
         ("Heron", "Heron"),
     ]})
-    code, out, _ = run(capsys, "check", str(book))
+    code, out, _ = cli("check", str(book))
     assert code == 1
     assert "row 2" in out and "column Away" in out and "'Heron'" in out
     assert "Usable: no" in out
 
 
 @pytest.mark.parametrize("name", ["small", "clubday", "season", "bigseason", "schedules"])
-def test_check_demo_leagues_have_no_problems(capsys, demo, name: str) -> None:
-    code, out, _ = run(capsys, "check", str(demo / f"{name}.xlsx"))
+def test_check_demo_leagues_have_no_problems(cli, demo, name: str) -> None:
+    code, out, _ = cli("check", str(demo / f"{name}.xlsx"))
     assert code == 0, out
     assert "Problems: none" in out
 
 
-def test_counts_rows_agree_with_groupings_identity(capsys, demo) -> None:
+def test_counts_rows_agree_with_groupings_identity(cli, demo) -> None:
     # Without pins, every-round-used = groupings(K) x K! (falling-factorial basis, textbook).
-    code, out, _ = run(capsys, "count", str(demo / "season.xlsx"), "--json")
+    code, out, _ = cli("count", str(demo / "season.xlsx"), "--json")
     assert code == 0
     for row in json.loads(out)["counts"]:
         k = row["rounds"]

@@ -13,16 +13,10 @@ from openpyxl import load_workbook
 from leaguegrid.cli import main
 
 
-def run(capsys, *argv: str) -> tuple[int, str, str]:
-    code = main(list(argv))
-    out, err = capsys.readouterr()
-    return code, out, err
-
-
-def test_plan_six_team_round_robin_is_a_valid_schedule(capsys, round_robin, tmp_path) -> None:
+def test_plan_six_team_round_robin_is_a_valid_schedule(cli, round_robin, tmp_path) -> None:
     book = round_robin(6)
     out_file = tmp_path / "calendar.xlsx"
-    code, out, _ = run(capsys, "plan", str(book), "--rounds", "5", "--seed", "11",
+    code, out, _ = cli("plan", str(book), "--rounds", "5", "--seed", "11",
                        "--out", str(out_file))
     assert code == 0
     # OEIS A000438 (6 one-factorizations of K6) x 5! orderings
@@ -38,46 +32,46 @@ def test_plan_six_team_round_robin_is_a_valid_schedule(capsys, round_robin, tmp_
         assert sorted(teams) == sorted(set(teams)) and len(teams) == 6  # each team once
 
 
-def test_plan_same_seed_same_schedule_and_seed_printed(capsys, round_robin) -> None:
+def test_plan_same_seed_same_schedule_and_seed_printed(cli, round_robin) -> None:
     book = str(round_robin(6))
-    _, first, _ = run(capsys, "plan", book, "--rounds", "6", "--seed", "2024")
-    _, second, _ = run(capsys, "plan", book, "--rounds", "6", "--seed", "2024")
+    _, first, _ = cli("plan", book, "--rounds", "6", "--seed", "2024")
+    _, second, _ = cli("plan", book, "--rounds", "6", "--seed", "2024")
     assert first == second
-    code, drawn, _ = run(capsys, "plan", book, "--rounds", "6")
+    code, drawn, _ = cli("plan", book, "--rounds", "6")
     assert code == 0
     seed = drawn.split("seed ", 1)[1].split(" ", 1)[0]
     assert f"(drawn; --seed {seed} gives this again)" in drawn
-    _, again, _ = run(capsys, "plan", book, "--rounds", "6", "--seed", seed)
+    _, again, _ = cli("plan", book, "--rounds", "6", "--seed", seed)
     assert again.splitlines()[2:] == drawn.splitlines()[2:]
 
 
-def test_plan_too_few_rounds_is_proven_impossible(capsys, round_robin) -> None:
-    code, _, err = run(capsys, "plan", str(round_robin(6)), "--rounds", "4", "--seed", "1")
+def test_plan_too_few_rounds_is_proven_impossible(cli, round_robin) -> None:
+    code, _, err = cli("plan", str(round_robin(6)), "--rounds", "4", "--seed", "1")
     assert code == 3
     assert "No schedule with 4 rounds exists" in err
 
 
-def test_plan_cannot_write_exits_4_and_never_overwrites_input(capsys, round_robin) -> None:
+def test_plan_cannot_write_exits_4_and_never_overwrites_input(cli, round_robin) -> None:
     book = round_robin(4)
     before = book.read_bytes()
-    code, _, err = run(capsys, "plan", str(book), "--rounds", "3", "--seed", "1",
+    code, _, err = cli("plan", str(book), "--rounds", "3", "--seed", "1",
                        "--out", str(book))
     assert code == 4
     assert "could not write" in err
     assert book.read_bytes() == before
     missing = book.parent / "no such folder" / "cal.xlsx"
-    code, _, _ = run(capsys, "plan", str(book), "--rounds", "3", "--seed", "1",
+    code, _, _ = cli("plan", str(book), "--rounds", "3", "--seed", "1",
                      "--out", str(missing))
     assert code == 4
     assert not missing.exists()
 
 
-def test_plan_more_rounds_than_the_rounds_sheet_is_a_usage_error(capsys, workbook) -> None:
+def test_plan_more_rounds_than_the_rounds_sheet_is_a_usage_error(cli, workbook) -> None:
     book = workbook("r.xlsx", {
         "Fixtures": [("Home", "Away"), ("A", "B")],
         "Rounds": [("Round", "Date"), (1, None), (2, None)],
     })
-    code, _, err = run(capsys, "plan", str(book), "--rounds", "3")
+    code, _, err = cli("plan", str(book), "--rounds", "3")
     assert code == 2
     assert "the Rounds sheet lists 2 rounds; --rounds 3 asks for more" in err
 
@@ -91,14 +85,14 @@ def _nx_count(edges: list[tuple[str, str]], nodes: list[str], k: int) -> int:
     return int(poly.subs(sympy.Symbol("x"), k))
 
 
-def test_whatif_matches_networkx_on_the_modified_graph(capsys, workbook) -> None:
+def test_whatif_matches_networkx_on_the_modified_graph(cli, workbook) -> None:
     # Four fixtures; a coach runs teams A and D (Clashes row), so A v B and C v D clash.
     book = workbook("w.xlsx", {
         "Fixtures": [("Fixture", "Home", "Away"), ("A v B", "A", "B"), ("B v C", "B", "C"),
                      ("C v D", "C", "D"), ("D v E", "D", "E")],
         "Clashes": [("First", "Second", "Reason"), ("team: A", "team: D", "Coach Pell")],
     })
-    code, out, _ = run(capsys, "whatif", str(book), "--rounds", "3", "--json",
+    code, out, _ = cli("whatif", str(book), "--rounds", "3", "--json",
                        "--add", "A v B,D v E")
     assert code == 0
     data = json.loads(out)
@@ -122,8 +116,8 @@ def test_whatif_matches_networkx_on_the_modified_graph(capsys, workbook) -> None
     assert added["loss"] == 0
 
 
-def test_whatif_add_unknown_name_is_a_usage_error(capsys, round_robin) -> None:
-    code, _, err = run(capsys, "whatif", str(round_robin(4)), "--rounds", "3",
+def test_whatif_add_unknown_name_is_a_usage_error(cli, round_robin) -> None:
+    code, _, err = cli("whatif", str(round_robin(4)), "--rounds", "3",
                        "--add", "Team Q,Team A")
     assert code == 2
     assert "'Team Q' is not a fixture, team or venue of this league" in err
