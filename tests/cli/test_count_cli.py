@@ -119,3 +119,15 @@ def test_counts_rows_agree_with_groupings_identity(cli, demo) -> None:
     for row in json.loads(out)["counts"]:
         k = row["rounds"]
         assert row["all_rounds_used"] == row["groupings"] * math.factorial(k)
+
+
+def test_no_window_prints_the_reason_and_the_demo_counts(cli, monkeypatch) -> None:
+    sentence = "The LeagueGrid window cannot start because there is no graphical display."
+    monkeypatch.setattr("leaguegrid.gui.startup.check", lambda *a, **k: sentence)
+    code, out, err = cli()
+    assert code == 0
+    assert err.startswith(sentence + "\n")
+    assert "Showing the counts of season.xlsx on the command line instead." in err
+    # the demo season: two six-team divisions, 30 fixtures, 6 rounds at the fewest
+    assert out.startswith("Hollowmere Junior League: 30 fixtures, 137 clashing pairs\n")
+    assert "Fewest rounds: 6\n" in out
