@@ -172,7 +172,7 @@ def open_window(path: Path | None) -> int:
     if problem is None:
         from leaguegrid.gui.app import run
 
-        return run(str(target))
+        return run(str(target), checked=True)
     print(problem, file=sys.stderr)
     print(f"Showing the counts of {target.name} on the command line instead.\n", file=sys.stderr)
     return cmd_count(argparse.Namespace(file=target, rounds=None, json=False, budget=60.0))

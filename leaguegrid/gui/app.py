@@ -24,9 +24,11 @@ def create_application() -> object:
     return app
 
 
-def run(path: str | None = None) -> int:
-    """Open the window on `path` (a workbook, CSV or project; the demo league when None)."""
-    if ensure_window_can_start() != 0:
+def run(path: str | None = None, *, checked: bool = False) -> int:
+    """Open the window on `path` (a workbook, CSV or project; the demo league when None).
+
+    `checked`: the caller already ran `startup.check()`, so the start is not probed again."""
+    if not checked and ensure_window_can_start() != 0:
         return 1
     app = create_application()
     from leaguegrid.gui import bridge, icons

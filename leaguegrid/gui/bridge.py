@@ -8,10 +8,8 @@ through here, as plain functions; the window runs the slow ones in a worker thre
 from __future__ import annotations
 
 import hashlib
-import tempfile
 import threading
 from collections.abc import Callable
-from dataclasses import replace
 from pathlib import Path
 from typing import Any
 
@@ -40,82 +38,11 @@ def sha256_of(path: str | Path) -> str:
 
 
 def load(path: str | Path, mapping: dict[str, str] | None = None) -> LoadResult:
-    """Read a league workbook or CSV; `mapping` (our column -> the workbook's, and "Shared")
-    is applied to a temporary renamed copy, so the input file is only ever read."""
+    """Read a league workbook or CSV; `mapping` (our Fixtures column -> the file's, and
+    "Shared": more of the file's columns, ";"-joined) is the window's column matching."""
     from leaguegrid.io.league_reader import load_league
 
-    if not mapping or not Path(path).is_file():
-        return load_league(path)
-    with tempfile.TemporaryDirectory(prefix="leaguegrid-") as folder:
-        copy = Path(folder) / (Path(path).stem + ".xlsx")
-        try:
-            _mapped_copy(Path(path), mapping, copy)
-        except Exception:  # an unreadable file: the reader reports it on the original
-            return load_league(path)
-        result = load_league(copy)
-    problems = [replace(p, file=str(path)) if p.file == str(copy) else p
-                for p in result.problems]
-    league = result.league
-    if league is not None:
-        league.source = str(path)
-        league.warnings = [replace(p, file=str(path)) if p.file == str(copy) else p
-                           for p in league.warnings]
-    return LoadResult(league, problems)
-
-
-def _mapped_copy(path: Path, mapping: dict[str, str], out: Path) -> None:
-    """Write `out`: the workbook's sheets with the Fixtures headers renamed by `mapping` and the
-    shared columns added to the Settings sheet's Shared value."""
-    from openpyxl import Workbook
-
-    sheets = preview_sheets(path, limit=10**7)
-    if not sheets:
-        raise ValueError("unreadable")
-    fixtures = next((n for n in sheets if n.strip().casefold() == "fixtures"), next(iter(sheets)))
-    renames = {theirs.strip().casefold(): ours for ours, theirs in mapping.items()
-               if ours != "Shared"}
-    rows = sheets[fixtures]
-    header = next((i for i, (_n, cells) in enumerate(rows)
-                   if any(c not in (None, "") for c in cells)), None)
-    if header is not None:
-        cells = list(rows[header][1])
-        taken = {ours.casefold() for ours in renames.values()}
-        for i, cell in enumerate(cells):
-            key = str(cell).strip().casefold() if cell is not None else ""
-            if key in renames:
-                cells[i] = renames[key]
-            elif key in taken:
-                cells[i] = f"{cell} (unmatched)"
-        rows[header] = (rows[header][0], cells)
-    shared = [c for c in mapping.get("Shared", "").split(";") if c.strip()]
-    if shared:
-        _add_shared(sheets, [renames.get(c.strip().casefold(), c) for c in shared])
-    book = Workbook()
-    book.remove(book.active)
-    for name, sheet_rows in sheets.items():
-        ws = book.create_sheet(name)
-        for _n, cells in sheet_rows:
-            ws.append(list(cells))
-    book.save(out)
-
-
-def _add_shared(sheets: dict[str, list[tuple[int, list]]], columns: list[str]) -> None:
-    """Put `columns` into the Settings sheet's Shared value (creating the sheet or row)."""
-    name = next((n for n in sheets if n.strip().casefold() == "settings"), None)
-    if name is None:
-        sheets["Settings"] = [(1, ["Setting", "Value"])]
-        name = "Settings"
-    rows = sheets[name]
-    for i, (n, cells) in enumerate(rows):
-        if cells and str(cells[0] or "").strip().casefold() == "shared":
-            now = [c.strip() for c in str(cells[1] or "").replace(";", ",").split(",")
-                   if c.strip()] if len(cells) > 1 else ["Home", "Away", "Venue"]
-            merged = now + [c for c in columns if c.casefold() not in
-                            {x.casefold() for x in now}]
-            rows[i] = (n, [cells[0], ", ".join(merged), *cells[2:]])
-            return
-    rows.append((rows[-1][0] + 1 if rows else 1,
-                 ["Shared", ", ".join(["Home", "Away", "Venue", *columns])]))
+    return load_league(path, columns=mapping or None)
 
 
 def clash_graph(league: League, waived: list[Reason] | None = None) -> nx.Graph:
@@ -171,6 +98,14 @@ def expanded_polynomial(poly: Any) -> str:
     return expanded(poly)
 
 
+def caution() -> str:
+    """The one wording of the caution to check schedules against the association's rules and
+    local regulations: the same the calendars carry."""
+    from leaguegrid.io.calendar_xlsx import CAUTION
+
+    return CAUTION
+
+
 def export_calendar(path: str | Path, league: League, schedule: Schedule, graph: nx.Graph,
                     min_rounds: int | None) -> None:
     """The Excel calendar of a schedule, written atomically."""
@@ -193,49 +128,31 @@ PREVIEW_ROWS = 5000
 
 def preview_sheets(path: str | Path,
                    limit: int = PREVIEW_ROWS) -> dict[str, list[tuple[int, list]]]:
-    """Each sheet's rows as the spreadsheet numbers them, for the preview; {} when unreadable.
+    """Each sheet's non-empty rows as (row number, cells), read by the importer's own reader
+    (io.sheets), so the row numbers are the ones its problems name; {} when unreadable.
 
-    Only reads (openpyxl read-only, cached values); a CSV shows as its one sheet, Fixtures.
+    A CSV shows as its one sheet, Fixtures; a cell holding a spreadsheet error shows its code.
     """
-    path = Path(path)
+    from leaguegrid.io.sheets import UnreadableFile, read_book
+
     try:
-        if path.suffix.lower() == ".csv":
-            return {"Fixtures": _csv_rows(path, limit)}
-        return _xlsx_rows(path, limit)
-    except Exception:  # a damaged file has no preview; its problems are listed instead
+        book = read_book(Path(path))
+    except UnreadableFile:  # a damaged file has no preview; its problems are listed instead
         return {}
+    return {name: _preview_rows(book.sheets[name], limit)
+            for name in book.sheet_names if name in book.sheets}
 
 
-def _csv_rows(path: Path, limit: int) -> list[tuple[int, list]]:
-    import csv
-
-    text = path.read_bytes().decode("utf-8-sig", errors="replace")
-    try:
-        dialect = csv.Sniffer().sniff(text[:4096], delimiters=",;")
-    except csv.Error:
-        dialect = csv.excel
-    rows = csv.reader(text.splitlines(), dialect)
-    return [(n, row) for n, row in zip(range(1, limit + 1), rows, strict=False)]
-
-
-def _xlsx_rows(path: Path, limit: int) -> dict[str, list[tuple[int, list]]]:
-    from openpyxl import load_workbook
-
-    book = load_workbook(path, read_only=True, data_only=True)
-    try:
-        out: dict[str, list[tuple[int, list]]] = {}
-        for sheet in book.worksheets:
-            rows = []
-            for n, row in enumerate(sheet.iter_rows(values_only=True), start=1):
-                if n > limit:
-                    break
-                rows.append((n, list(row)))
-            while rows and all(v is None for v in rows[-1][1]):
-                rows.pop()
-            out[sheet.title] = rows
-        return out
-    finally:
-        book.close()
+def _preview_rows(sheet: Any, limit: int) -> list[tuple[int, list]]:
+    """A RawSheet's rows (and its error cells, such as #REF!) as (row number, cells A, B, ...)."""
+    rows: dict[int, dict[int, object]] = {n: dict(cells) for n, cells in sheet.rows}
+    for n, column, code in sheet.error_cells:
+        rows.setdefault(n, {})[column] = code
+    out = []
+    for n in sorted(rows)[:limit]:
+        cells = rows[n]
+        out.append((n, [cells.get(c) for c in range(1, max(cells) + 1)]))
+    return out
 
 
 def ics_plan(league: League, schedule: Schedule) -> tuple[list[str], str | None]:

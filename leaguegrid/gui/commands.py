@@ -31,20 +31,34 @@ class PinCommand(QUndoCommand):
         self.doc.changed_edits()
 
 
-class TieCommand(QUndoCommand):
-    """Tie two fixtures: they must share a round."""
+class _PairCommand(QUndoCommand):
+    """Append a pair of fixtures to one of the edits' lists of pairs; undo removes it."""
 
-    def __init__(self, doc: LeagueDocument, first: str, second: str) -> None:
-        super().__init__(f"Tie {first} with {second}")
-        self.doc, self.pair = doc, (first, second)
+    edits_field = ""  # the Edits attribute holding the pairs: "ties" or "added"
+
+    def __init__(self, doc: LeagueDocument, pair: tuple[str, str], text: str) -> None:
+        super().__init__(text)
+        self.doc, self.pair = doc, pair
+
+    def _pairs(self) -> list[tuple[str, str]]:
+        return getattr(self.doc.edits, self.edits_field)
 
     def redo(self) -> None:
-        self.doc.edits.ties.append(self.pair)
+        self._pairs().append(self.pair)
         self.doc.changed_edits()
 
     def undo(self) -> None:
-        self.doc.edits.ties.remove(self.pair)
+        self._pairs().remove(self.pair)
         self.doc.changed_edits()
+
+
+class TieCommand(_PairCommand):
+    """Tie two fixtures: they must share a round."""
+
+    edits_field = "ties"
+
+    def __init__(self, doc: LeagueDocument, first: str, second: str) -> None:
+        super().__init__(doc, (first, second), f"Tie {first} with {second}")
 
 
 class UntieCommand(QUndoCommand):
@@ -108,17 +122,10 @@ class WaiveCommand(QUndoCommand):
         self._apply(not self.waive)
 
 
-class AddClashCommand(QUndoCommand):
+class AddClashCommand(_PairCommand):
     """Add a clash between two fixtures (a split: they must not share a round)."""
 
+    edits_field = "added"
+
     def __init__(self, doc: LeagueDocument, first: str, second: str) -> None:
-        super().__init__(f"Add a clash: {first} and {second}")
-        self.doc, self.pair = doc, (first, second)
-
-    def redo(self) -> None:
-        self.doc.edits.added.append(self.pair)
-        self.doc.changed_edits()
-
-    def undo(self) -> None:
-        self.doc.edits.added.remove(self.pair)
-        self.doc.changed_edits()
+        super().__init__(doc, (first, second), f"Add a clash: {first} and {second}")

@@ -7,14 +7,12 @@ from typing import Any
 from PySide6.QtCore import Qt, Signal
 from PySide6.QtGui import QGuiApplication
 from PySide6.QtWidgets import (
-    QAbstractItemView,
     QHBoxLayout,
     QHeaderView,
     QLabel,
     QPlainTextEdit,
     QPushButton,
     QSplitter,
-    QTableWidget,
     QTableWidgetItem,
     QVBoxLayout,
     QWidget,
@@ -22,6 +20,7 @@ from PySide6.QtWidgets import (
 
 from leaguegrid.gui import numbers
 from leaguegrid.gui.count_plot import CountPlot, PlotPoint
+from leaguegrid.gui.tables import row_table
 
 COLUMNS = ("Rounds", "Assignments", "All rounds used", "Groupings")
 FIELDS = ("rounds", "assignments", "all_rounds_used", "groupings")
@@ -46,15 +45,10 @@ class CountsView(QWidget):
         self.summary = QLabel("Open a league and compute its counts (Ctrl+R).")
         self.summary.setWordWrap(True)
         self.summary.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-        self.table = QTableWidget(0, len(COLUMNS))
-        self.table.setObjectName("countsTable")
-        self.table.setHorizontalHeaderLabels(COLUMNS)
+        self.table = row_table("countsTable", COLUMNS)
         for i, tip in enumerate(HEADER_TIPS):
             self.table.horizontalHeaderItem(i).setToolTip(tip)
         self.table.verticalHeader().setVisible(False)
-        self.table.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
-        self.table.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
-        self.table.setSelectionMode(QAbstractItemView.SelectionMode.SingleSelection)
         self.table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.Stretch)
         self.table.horizontalHeader().setSectionResizeMode(
             0, QHeaderView.ResizeMode.ResizeToContents)

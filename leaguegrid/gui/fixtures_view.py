@@ -4,18 +4,17 @@ from __future__ import annotations
 
 from PySide6.QtCore import QPoint, Qt, Signal
 from PySide6.QtWidgets import (
-    QAbstractItemView,
     QHeaderView,
-    QInputDialog,
     QLabel,
     QMenu,
-    QTableWidget,
     QTableWidgetItem,
     QVBoxLayout,
     QWidget,
 )
 
 from leaguegrid.gui.document import LeagueDocument
+from leaguegrid.gui.pickers import ask_round, pick_tie_partner
+from leaguegrid.gui.tables import row_table
 
 COLUMNS = ("Fixture", "Home", "Away", "Venue", "Pitch", "Division", "Pinned round",
            "Round in schedule", "Clash with selected")
@@ -31,12 +30,7 @@ class FixturesView(QWidget):
         super().__init__(parent)
         self.doc = doc
         self.note = QLabel("Right-click a fixture to pin it to a round or tie it to another.")
-        self.table = QTableWidget(0, len(COLUMNS))
-        self.table.setObjectName("fixturesTable")
-        self.table.setHorizontalHeaderLabels(COLUMNS)
-        self.table.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
-        self.table.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
-        self.table.setSelectionMode(QAbstractItemView.SelectionMode.SingleSelection)
+        self.table = row_table("fixturesTable", COLUMNS)
         self.table.horizontalHeader().setSectionResizeMode(
             QHeaderView.ResizeMode.ResizeToContents)
         self.table.horizontalHeader().setStretchLastSection(True)
@@ -126,16 +120,12 @@ class FixturesView(QWidget):
         tie_action = menu.addAction("Tie with…")
         chosen = menu.exec(self.table.viewport().mapToGlobal(pos))
         if chosen is pin_action:
-            current = self.doc.pin_of(label) or 1
-            k, ok = QInputDialog.getInt(self, "Pin fixture", f"Round for {label}:", current, 1, 999)
-            if ok:
+            k = ask_round(self, "Pin fixture", label, self.doc.pin_of(label) or 1)
+            if k is not None:
                 self.pinRequested.emit(label, k)
         elif chosen is unpin_action:
             self.pinRequested.emit(label, None)
         elif chosen is tie_action:
-            labels = [lbl for lbl in self.rows if lbl != label]
-            other, ok = QInputDialog.getItem(self, "Tie fixtures",
-                                             f"Fixture to share a round with {label}:", labels,
-                                             0, False)
-            if ok and other:
+            other = pick_tie_partner(self, label, [lbl for lbl in self.rows if lbl != label])
+            if other:
                 self.tieRequested.emit(label, other)

@@ -107,9 +107,12 @@ class ImportView(QWidget):
 
     def locate(self, problem: Problem) -> tuple[QTableWidget, int, int] | None:
         """The table, row index and column index a problem points at (column -1 if unknown)."""
-        if not problem.sheet:
+        if problem.sheet:
+            table = self.tables.get(problem.sheet.casefold())
+        elif problem.row is not None and len(self.tables) == 1:  # a CSV file's one sheet
+            table = next(iter(self.tables.values()))
+        else:
             return None
-        table = self.tables.get(problem.sheet.casefold())
         if table is None:
             return None
         numbers = table.property("rowNumbers") or []

@@ -33,6 +33,13 @@ from leaguegrid.gui.export_dialog import ExportDialog
 from leaguegrid.gui.fixtures_view import FixturesView
 from leaguegrid.gui.import_view import ImportView
 from leaguegrid.gui.mapping_dialog import MappingDialog, load_mapping, save_mapping
+from leaguegrid.gui.pickers import (
+    Partner,
+    ask_round,
+    pick_clash_partner,
+    pick_pair,
+    pick_tie_partner,
+)
 from leaguegrid.gui.schedule_view import ScheduleView
 from leaguegrid.gui.whatif_view import WhatIfView
 from leaguegrid.gui.worker import Job, Runner
@@ -41,9 +48,6 @@ APP_NAME = "LeagueGrid"
 MAX_RECENT = 8
 OPEN_FILTER = ("League workbooks and projects (*.xlsx *.csv *.leaguegrid);;"
                "Workbooks (*.xlsx);;CSV files (*.csv);;LeagueGrid projects (*.leaguegrid)")
-CAUTION = ("LeagueGrid counts and proposes schedules; a coordinator checks every schedule "
-           "against their association's rules (rest between games for juniors, heat, lighting, "
-           "travel) and local regulations before publishing it.")
 
 
 class MainWindow(QMainWindow):
@@ -97,14 +101,12 @@ class MainWindow(QMainWindow):
             self.tabs.addTab(widget, title)
         self.setCentralWidget(self.tabs)
 
-    def _action(self, text: str, slot, shortcut: Any = None, tip: str = "",
+    def _action(self, text: str, slot: Any, shortcut: Any = None, tip: str = "",
                 icon: Any = None) -> QAction:
+        """A QAction of the window; `shortcut` is a key name ("Ctrl+R") or a standard key."""
         action = QAction(text, self)
         if shortcut is not None:
-            if isinstance(shortcut, list):
-                action.setShortcuts(shortcut)
-            else:
-                action.setShortcut(shortcut)
+            action.setShortcut(QKeySequence(shortcut) if isinstance(shortcut, str) else shortcut)
         if tip:
             action.setStatusTip(tip)
             action.setToolTip(tip)
@@ -116,75 +118,60 @@ class MainWindow(QMainWindow):
     def _build_actions(self) -> None:
         std = self.style().standardIcon
         sp = QStyle.StandardPixmap
-        self.act_open = self._action("&Open…", self.open_dialog, QKeySequence.StandardKey.Open,
-                                     "Open a league workbook, CSV or project",
-                                     std(sp.SP_DialogOpenButton))
-        self.act_reload = self._action("&Reload workbook", self.reload, QKeySequence("F5"),
-                                       "Read the workbook again from disk")
-        self.act_mapping = self._action("&Match columns…", self.edit_mapping, None,
-                                        "Say which of the workbook's columns are Home, Away, "
-                                        "Venue and the shared resources")
-        self.act_save = self._action("&Save project", self.save_project,
-                                     QKeySequence.StandardKey.Save,
-                                     "Save the league's project file (workbook path, pins, "
-                                     "ties, schedule, seed)", std(sp.SP_DialogSaveButton))
-        self.act_save_as = self._action("Save project &as…", self.save_project_as,
-                                        QKeySequence.StandardKey.SaveAs)
-        self.act_export = self._action("&Export…", self.export_dialog, QKeySequence("Ctrl+E"),
-                                       "Write the schedule as an Excel calendar, iCalendar "
-                                       "files or CSV", icons.export_icon())
-        self.act_quit = self._action("&Quit", self.close, QKeySequence.StandardKey.Quit)
+        key = QKeySequence.StandardKey
+        specs = (  # attribute, text, slot, shortcut, tip, icon
+            ("act_open", "&Open…", self.open_dialog, key.Open,
+             "Open a league workbook, CSV or project", std(sp.SP_DialogOpenButton)),
+            ("act_reload", "&Reload workbook", self.reload, "F5",
+             "Read the workbook again from disk", None),
+            ("act_mapping", "&Match columns…", self.edit_mapping, None,
+             "Say which of the workbook's columns are Home, Away, Venue and the shared "
+             "resources", None),
+            ("act_save", "&Save project", self.save_project, key.Save,
+             "Save the league's project file (workbook path, pins, ties, schedule, seed)",
+             std(sp.SP_DialogSaveButton)),
+            ("act_save_as", "Save project &as…", self.save_project_as, key.SaveAs, "", None),
+            ("act_export", "&Export…", self.export_dialog, "Ctrl+E",
+             "Write the schedule as an Excel calendar, iCalendar files or CSV",
+             icons.export_icon()),
+            ("act_quit", "&Quit", self.close, key.Quit, "", None),
+            ("act_pin", "&Pin fixture to its round", self.pin_selected, "Ctrl+P",
+             "Fix the selected fixture to the round it has in the schedule (or a round you "
+             "choose)", None),
+            ("act_unpin", "U&npin fixture", self.unpin_selected, "Ctrl+Shift+P", "", None),
+            ("act_tie", "&Tie with another fixture…", self.tie_selected, "Ctrl+T",
+             "The two fixtures must share a round", None),
+            ("act_add_clash", "&Add a clash…", self.add_clash_dialog, "Ctrl+L",
+             "Two fixtures that must not share a round (what-if)", None),
+            ("act_count", "&Count schedules", self.compute_counts, "Ctrl+R",
+             "Count the valid round assignments per number of rounds", icons.count_icon()),
+            ("act_cancel", "&Cancel", self.runner.cancel, "Esc",
+             "Stop the computation that is running", std(sp.SP_BrowserStop)),
+            ("act_draw", "&Draw a schedule", self.draw_schedule, "Ctrl+D",
+             "Draw one valid schedule at random (a new seed)", icons.draw_icon()),
+            ("act_redraw", "Draw with the &same seed", self.redraw_same_seed, "Ctrl+Shift+D",
+             "Draw again with the seed shown: the same schedule", None),
+            ("act_best", "&Best of many…", self.best_of_dialog, "Ctrl+B",
+             "Draw many schedules and keep the best-scoring one", None),
+            ("act_budget", "&Time allowed for counting…", self.budget_dialog, None,
+             "Seconds a count may take before what is left is shown as estimates", None),
+            ("act_whatif", "Rank clash &reasons", self.compute_whatif, "Ctrl+I",
+             "How many more schedules each waived clash reason gives", None),
+            ("act_zoom_in", "Zoom &in", self.clash_view.zoom_in, key.ZoomIn, "", None),
+            ("act_zoom_out", "Zoom &out", self.clash_view.zoom_out, key.ZoomOut, "", None),
+            ("act_zoom_fit", "&Fit graph", self.clash_view.fit, "Ctrl+0", "", None),
+            ("act_about", "&About LeagueGrid", self.about, None, "", None),
+        )
+        for name, text, slot, shortcut, tip, icon in specs:
+            setattr(self, name, self._action(text, slot, shortcut, tip, icon))
         self.act_undo = self.doc.undo.createUndoAction(self, "&Undo")
         self.act_undo.setShortcut(QKeySequence.StandardKey.Undo)
         self.act_redo = self.doc.undo.createRedoAction(self, "&Redo")
         self.act_redo.setShortcuts([QKeySequence.StandardKey.Redo, QKeySequence("Ctrl+Y")])
-        self.act_pin = self._action("&Pin fixture to its round", self.pin_selected,
-                                    QKeySequence("Ctrl+P"),
-                                    "Fix the selected fixture to the round it has in the "
-                                    "schedule (or a round you choose)")
-        self.act_unpin = self._action("U&npin fixture", self.unpin_selected,
-                                      QKeySequence("Ctrl+Shift+P"))
-        self.act_tie = self._action("&Tie with another fixture…", self.tie_selected,
-                                    QKeySequence("Ctrl+T"),
-                                    "The two fixtures must share a round")
-        self.act_add_clash = self._action("&Add a clash…", self.add_clash_dialog,
-                                          QKeySequence("Ctrl+L"),
-                                          "Two fixtures that must not share a round (what-if)")
-        self.act_count = self._action("&Count schedules", self.compute_counts,
-                                      QKeySequence("Ctrl+R"),
-                                      "Count the valid round assignments per number of rounds",
-                                      icons.count_icon())
-        self.act_cancel = self._action("&Cancel", self.runner.cancel, QKeySequence("Esc"),
-                                       "Stop the computation that is running",
-                                       std(sp.SP_BrowserStop))
-        self.act_draw = self._action("&Draw a schedule", self.draw_schedule,
-                                     QKeySequence("Ctrl+D"),
-                                     "Draw one valid schedule at random (a new seed)",
-                                     icons.draw_icon())
-        self.act_redraw = self._action("Draw with the &same seed", self.redraw_same_seed,
-                                       QKeySequence("Ctrl+Shift+D"),
-                                       "Draw again with the seed shown: the same schedule")
-        self.act_best = self._action("&Best of many…", self.best_of_dialog,
-                                     QKeySequence("Ctrl+B"),
-                                     "Draw many schedules and keep the best-scoring one")
-        self.act_budget = self._action("&Time allowed for counting…", self.budget_dialog, None,
-                                       "Seconds a count may take before what is left is "
-                                       "shown as estimates")
-        self.act_whatif = self._action("Rank clash &reasons", self.compute_whatif,
-                                       QKeySequence("Ctrl+I"),
-                                       "How many more schedules each waived clash reason gives")
-        self.act_zoom_in = self._action("Zoom &in", self.clash_view.zoom_in,
-                                        QKeySequence.StandardKey.ZoomIn)
-        self.act_zoom_out = self._action("Zoom &out", self.clash_view.zoom_out,
-                                         QKeySequence.StandardKey.ZoomOut)
-        self.act_zoom_fit = self._action("&Fit graph", self.clash_view.fit, QKeySequence("Ctrl+0"))
-        self.act_about = self._action("&About LeagueGrid", self.about)
-        self.tab_actions = []
-        for i in range(self.tabs.count()):
-            act = self._action(self.tabs.tabText(i),
-                               lambda _c=False, i=i: self.tabs.setCurrentIndex(i),
-                               QKeySequence(f"Alt+{i + 1}"))
-            self.tab_actions.append(act)
+        self.tab_actions = [
+            self._action(self.tabs.tabText(i), lambda _c=False, i=i: self.tabs.setCurrentIndex(i),
+                         f"Alt+{i + 1}")
+            for i in range(self.tabs.count())]
 
     def _build_menus(self) -> None:
         bar = self.menuBar()
@@ -639,8 +626,8 @@ class MainWindow(QMainWindow):
         if schedule is not None and label in schedule.assignment:
             self.pin_fixture(label, schedule.assignment[label])
             return
-        k, ok = QInputDialog.getInt(self, "Pin fixture", f"Round for {label}:", 1, 1, 999)
-        if ok:
+        k = ask_round(self, "Pin fixture", label, 1)
+        if k is not None:
             self.pin_fixture(label, k)
 
     def unpin_selected(self) -> None:
@@ -648,31 +635,23 @@ class MainWindow(QMainWindow):
         if label is not None and self.doc.pin_of(label) is not None:
             self.pin_fixture(label, None)
 
-    def _pick_fixture(self, title: str, prompt: str, exclude: str | None = None) -> str | None:
+    def _ask_pair(self, title: str, partner: Partner) -> tuple[str, str] | None:
+        """The selected fixture (asked for when none is) and the other one `partner` asks for."""
         league = self.doc.league
         if league is None:
             return None
-        labels = [f.label for f in league.fixtures if f.label != exclude]
-        choice, ok = QInputDialog.getItem(self, title, prompt, labels, 0, False)
-        return choice if ok else None
+        return pick_pair(self, title, [f.label for f in league.fixtures], partner,
+                         self._selected_label())
 
     def tie_selected(self) -> None:
-        first = self._selected_label() or self._pick_fixture("Tie fixtures", "First fixture:")
-        if first is None:
-            return
-        second = self._pick_fixture("Tie fixtures", f"Fixture to share a round with {first}:",
-                                    first)
-        if second:
-            self.tie_fixtures(first, second)
+        pair = self._ask_pair("Tie fixtures", pick_tie_partner)
+        if pair:
+            self.tie_fixtures(*pair)
 
     def add_clash_dialog(self) -> None:
-        first = self._selected_label() or self._pick_fixture("Add a clash", "First fixture:")
-        if first is None:
-            return
-        second = self._pick_fixture("Add a clash", f"Fixture that may not share a round "
-                                    f"with {first}:", first)
-        if second:
-            self.add_clash(first, second)
+        pair = self._ask_pair("Add a clash", pick_clash_partner)
+        if pair:
+            self.add_clash(*pair)
 
     def add_clash(self, first: str, second: str) -> None:
         if first != second:
@@ -750,4 +729,4 @@ class MainWindow(QMainWindow):
         QMessageBox.about(self, f"About {APP_NAME}",
                           f"<b>{APP_NAME} {__version__}</b><p>Counts the clash-free ways to put "
                           f"a league's fixtures into rounds, finds the fewest rounds, draws "
-                          f"schedules and writes calendars.</p><p>{CAUTION}</p>")
+                          f"schedules and writes calendars.</p><p>{bridge.caution()}</p>")

@@ -9,7 +9,6 @@ from PySide6.QtCore import QMimeData, QPoint, Qt, Signal
 from PySide6.QtGui import QColor, QDrag, QPalette
 from PySide6.QtWidgets import (
     QAbstractItemView,
-    QInputDialog,
     QLabel,
     QMenu,
     QTableWidget,
@@ -19,6 +18,7 @@ from PySide6.QtWidgets import (
 
 from leaguegrid.gui import bridge, palette
 from leaguegrid.gui.document import LeagueDocument
+from leaguegrid.gui.pickers import ask_round, pick_tie_partner
 
 MIME = "application/x-leaguegrid-fixture"
 NO_VENUE = "(no venue)"
@@ -226,16 +226,13 @@ class ScheduleView(QWidget):
         elif chosen is unpin:
             self.pinRequested.emit(label, None)
         elif chosen is tie:
-            labels = [x for x in self.chips if x != label]
-            other, ok = QInputDialog.getItem(self, "Tie fixtures",
-                                             f"Fixture to share a round with {label}:",
-                                             sorted(labels, key=str.casefold), 0, False)
-            if ok and other:
+            labels = sorted((x for x in self.chips if x != label), key=str.casefold)
+            other = pick_tie_partner(self, label, labels)
+            if other:
                 self.tieRequested.emit(label, other)
         elif chosen is move and self.doc.schedule is not None:
-            k, ok = QInputDialog.getInt(self, "Move fixture", f"Round for {label}:", round_, 1,
-                                        self.doc.schedule.rounds)
-            if ok:
+            k = ask_round(self, "Move fixture", label, round_, self.doc.schedule.rounds)
+            if k is not None:
                 self.moveRequested.emit(label, k)
 
     def chip_colour(self, label: str) -> QColor:

@@ -8,13 +8,10 @@ from typing import Any
 
 from PySide6.QtCore import Qt, Signal
 from PySide6.QtWidgets import (
-    QAbstractItemView,
     QHBoxLayout,
     QHeaderView,
-    QInputDialog,
     QLabel,
     QPushButton,
-    QTableWidget,
     QTableWidgetItem,
     QVBoxLayout,
     QWidget,
@@ -22,6 +19,8 @@ from PySide6.QtWidgets import (
 
 from leaguegrid.gui import numbers
 from leaguegrid.gui.document import LeagueDocument
+from leaguegrid.gui.pickers import pick_clash_partner, pick_pair
+from leaguegrid.gui.tables import row_table
 
 COLUMNS = ("Clash reason", "Kind", "Clashes it makes", "Assignments if waived", "Gain",
            "Fewest rounds if waived", "Waived now")
@@ -43,12 +42,7 @@ class WhatIfView(QWidget):
                               "schedules. Waiving or adding a clash acts on a copy of the league: "
                               "the workbook is never changed, and Undo takes it back.")
         self.summary.setWordWrap(True)
-        self.table = QTableWidget(0, len(COLUMNS))
-        self.table.setObjectName("whatifTable")
-        self.table.setHorizontalHeaderLabels(COLUMNS)
-        self.table.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
-        self.table.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
-        self.table.setSelectionMode(QAbstractItemView.SelectionMode.SingleSelection)
+        self.table = row_table("whatifTable", COLUMNS)
         self.table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
         self.table.horizontalHeader().setSectionResizeMode(0, QHeaderView.ResizeMode.Stretch)
         self.table.itemSelectionChanged.connect(self._selection)
@@ -139,16 +133,10 @@ class WhatIfView(QWidget):
         league = self.doc.league
         if league is None:
             return
-        labels = [f.label for f in league.fixtures]
-        first, ok = QInputDialog.getItem(self, "Add a clash", "First fixture:", labels, 0, False)
-        if not ok:
-            return
-        others = [x for x in labels if x != first]
-        second, ok = QInputDialog.getItem(self, "Add a clash",
-                                          f"Fixture that may not share a round with {first}:",
-                                          others, 0, False)
-        if ok:
-            self.addRequested.emit(first, second)
+        pair = pick_pair(self, "Add a clash", [f.label for f in league.fixtures],
+                         pick_clash_partner)
+        if pair:
+            self.addRequested.emit(*pair)
 
     def _show_state(self) -> None:
         edits = self.doc.edits

@@ -75,6 +75,37 @@ def test_tie_merges_two_fixtures_in_the_counts(qtbot, window, tmp_path):
     assert shown(window, 5) == engine_count(graph, 5, {"Otters v Badgers": 1})
 
 
+def test_tie_and_add_a_clash_ask_for_the_fixtures_they_pair(qtbot, window, monkeypatch):
+    window.open_path(str(SMALL))
+    qtbot.waitUntil(lambda: window.doc.usable, timeout=30_000)
+    labels = [f.label for f in window.doc.league.fixtures]
+    others = [label for label in labels if label != "Herons v Wrens"]
+    asked = []
+    answers = iter(["Herons v Wrens", "Otters v Badgers", "Otters v Badgers",
+                    "Wrens v Badgers", "Herons v Otters"])
+
+    def get_item(_parent, title, prompt, items, *_args):
+        asked.append((title, prompt, list(items)))
+        return next(answers), True
+
+    monkeypatch.setattr(QInputDialog, "getItem", staticmethod(get_item))
+    window.act_tie.trigger()  # nothing selected: both fixtures are asked for
+    assert window.doc.edits.ties == [("Herons v Wrens", "Otters v Badgers")]
+    window.doc.select("Herons v Wrens")
+    window.act_add_clash.trigger()  # the selected fixture is the first
+    window.whatif_view.add_button.click()
+    assert window.doc.edits.added == [("Herons v Wrens", "Otters v Badgers"),
+                                      ("Wrens v Badgers", "Herons v Otters")]
+    assert asked == [
+        ("Tie fixtures", "First fixture:", labels),
+        ("Tie fixtures", "Fixture to share a round with Herons v Wrens:", others),
+        ("Add a clash", "Fixture that may not share a round with Herons v Wrens:", others),
+        ("Add a clash", "First fixture:", labels),
+        ("Add a clash", "Fixture that may not share a round with Wrens v Badgers:",
+         [label for label in labels if label != "Wrens v Badgers"]),
+    ]
+
+
 def test_moving_a_fixture_says_at_once_what_it_breaks(qtbot, window, tmp_path):
     open_small(qtbot, window, tmp_path)
     window.act_draw.trigger()
