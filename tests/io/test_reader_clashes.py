@@ -3,7 +3,7 @@ team or venue to all its fixtures, and every problem at its cell."""
 
 from __future__ import annotations
 
-from tests.io.test_reader_support import errors, load_book, one, warnings_of
+from test_reader_support import errors, load_book, one, warnings_of
 
 FIXTURES = [
     ["Fixture", "Home", "Away", "Venue", "Round"],

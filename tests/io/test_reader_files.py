@@ -7,8 +7,9 @@ import os
 import zipfile
 from pathlib import Path
 
+from test_reader_support import errors, load_book, one, patch_cells, write_book
+
 from leaguegrid.io.league_reader import load_league
-from tests.io.test_reader_support import errors, load_book, one, patch_cells, write_book
 
 FIXTURES = [["Home", "Away", "Round"], ["Alder", "Birch", 1], ["Cedar", "Damson", None]]
 

@@ -5,8 +5,9 @@ from __future__ import annotations
 
 import datetime as dt
 
+from test_reader_support import errors, load_book, one, warnings_of
+
 from leaguegrid.io.league_reader import load_league
-from tests.io.test_reader_support import errors, load_book, one, warnings_of
 
 HEAD = ["Fixture", "Home", "Away", "Venue", "Division", "Round"]
 

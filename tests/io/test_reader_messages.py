@@ -4,8 +4,9 @@ from __future__ import annotations
 
 import zipfile
 
+from test_reader_support import errors, load_book, one, warnings_of, write_book
+
 from leaguegrid.io.league_reader import load_league
-from tests.io.test_reader_support import errors, load_book, one, warnings_of, write_book
 
 FIXTURES = [["Home", "Away", "Venue"], ["Alder", "Birch", "Oak Rd"], ["Cedar", "Damson", "Pine St"]]
 

@@ -4,9 +4,10 @@ from __future__ import annotations
 
 import datetime as dt
 
+from test_reader_support import errors, load_book, one, warnings_of, write_book
+
 from leaguegrid.io.league_reader import load_league
 from leaguegrid.model import Blocked, Settings
-from tests.io.test_reader_support import errors, load_book, one, warnings_of, write_book
 
 FIXTURES = [["Home", "Away", "Venue"], ["Alder", "Birch", "Oak Rd"], ["Cedar", "Damson", "Pine St"]]
 

@@ -6,8 +6,9 @@ from __future__ import annotations
 from collections import Counter
 from itertools import combinations
 
+from test_reader_support import errors, load_book, one, six_teams, warnings_of
+
 from leaguegrid.io.roundrobin import round_robin
-from tests.io.test_reader_support import errors, load_book, one, six_teams, warnings_of
 
 
 def test_six_teams_fifteen_fixtures_home_and_away_balanced(tmp_path):
