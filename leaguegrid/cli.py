@@ -86,7 +86,12 @@ def build_parser() -> argparse.ArgumentParser:
     whatif = sub.add_parser("whatif", help="what waiving or adding a clash would change")
     whatif.add_argument("file", type=Path)
     whatif.add_argument("--rounds", type=int, required=True, metavar="K")
-    whatif.add_argument("--add", metavar="NAME,NAME")
+    whatif.add_argument("--add", metavar="NAME,NAME", help="a proposed clash between two "
+                        "fixtures, teams or venues")
+    whatif.add_argument("--join", metavar="TEAM,DIVISION[,VENUE]",
+                        help="counts before and after a new team joins a division")
+    whatif.add_argument("--close", metavar="VENUE,ROUND",
+                        help="counts before and after a venue closes for a round (or a date)")
     whatif.add_argument("--json", action="store_true")
     whatif.add_argument("--budget", type=float, default=60.0, metavar="SECONDS")
     return parser

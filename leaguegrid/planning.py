@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import argparse
+import datetime as dt
 import json
 import sys
 
@@ -155,21 +156,67 @@ def parse_add(text: str | None) -> tuple[str, str] | None:
     return first.strip(), second.strip()
 
 
+def split_names(option: str, text: str, least: int, most: int) -> list[str]:
+    """An option's comma-separated names, between `least` and `most` of them, none blank."""
+    parts = [p.strip() for p in text.split(",")]
+    if not least <= len(parts) <= most or not all(parts):
+        raise UsageError(f"{option} takes {least} to {most} comma-separated names, not {text!r}")
+    return parts
+
+
+def parse_round(text: str) -> int | dt.date:
+    """A round number or an ISO date (YYYY-MM-DD)."""
+    if text.isdigit() and int(text) >= 1:
+        return int(text)
+    try:
+        return dt.date.fromisoformat(text)
+    except ValueError as err:
+        raise UsageError(f"{text!r} is neither a round number nor a date (YYYY-MM-DD)") from err
+
+
 def run_whatif(args: argparse.Namespace, league: League, graph: nx.Graph) -> int:
-    """`leaguegrid whatif`: every clash reason ranked by what waiving it would add."""
-    from leaguegrid.schedule.whatif import whatif
+    """`leaguegrid whatif`: every clash reason ranked by what waiving it would add, a proposed
+    clash, a team joining, a venue closing."""
+    from leaguegrid.schedule import whatif as what
 
     add = parse_add(args.add)
+    changes = []
     try:
-        report = whatif(league, graph, args.rounds, add=add, budget=args.budget)
-    except ValueError as err:  # a name in --add that is unknown, ambiguous or the same fixture
+        report = what.whatif(league, graph, args.rounds, add=add, budget=args.budget)
+        hooks = engine.Hooks(budget=args.budget)
+        if args.join:
+            team, division, *venue = split_names("--join", args.join, 2, 3)
+            changes.append(what.team_joins(league, args.rounds, team, division,
+                                           venue[0] if venue else None, hooks=hooks))
+        if args.close:
+            venue, when = split_names("--close", args.close, 2, 2)
+            what.resolve(league, f"venue: {venue}")  # an unknown venue is a usage error
+            changes.append(what.venue_closes(league, graph, args.rounds, venue,
+                                             parse_round(when), hooks=hooks))
+    except ValueError as err:  # an unknown or ambiguous name, or the same fixture twice
         raise UsageError(str(err)) from err
+    except (engine.BudgetExceeded, engine.Cancelled):
+        report.complete = False
     if args.json:
-        json.dump(report.to_json(), sys.stdout, indent=2)
+        data = report.to_json()
+        if changes:
+            data["changes"] = [c.to_json() for c in changes]
+        json.dump(data, sys.stdout, indent=2)
         sys.stdout.write("\n")
     else:
         _print_whatif(league, report)
+        for change in changes:
+            _print_change(change)
     return 0 if report.complete else 5
+
+
+def _print_change(change) -> None:
+    """Counts before and after a change to the league."""
+    print(f"\nIf {change.change}: {_count_text(change.assignments_before)} -> "
+          f"{_count_text(change.assignments_after)} valid assignments for {change.rounds} rounds; "
+          f"fewest rounds {change.min_rounds_before} -> {change.min_rounds_after}")
+    if change.fixtures_added:
+        print(f"  new fixtures: {', '.join(change.fixtures_added)}")
 
 
 def _count_text(value: int | None) -> str:

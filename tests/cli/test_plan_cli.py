@@ -134,3 +134,26 @@ def test_demo_path_exists() -> None:
     from leaguegrid.cli import demo_path
 
     assert Path(demo_path()).is_file()
+
+
+def test_whatif_team_joins_and_venue_closes(cli, round_robin) -> None:
+    # Four teams, Team A's ground closes in round 1, then a fifth team joins.
+    book = str(round_robin(4))
+    code, out, _ = cli("whatif", book, "--rounds", "5", "--json", "--close", "Ground A,1",
+                       "--join", "Team E,Open,Ground E")
+    assert code == 0
+    joined, closed = json.loads(out)["changes"]
+    # The fixtures of a 4-team round-robin clash as the line graph of K4, the octahedron
+    # K_{2,2,2} (textbook); its count is checked against networkx.
+    octahedron = nx.complete_multipartite_graph(2, 2, 2)
+    assert joined["assignments_before"] == _nx_count(
+        list(octahedron.edges), list(octahedron.nodes), 5)
+    # A 5-team round-robin needs 5 rounds: the chromatic index of K_n is n for odd n
+    # (textbook); the new team brings 4 fixtures.
+    assert joined["min_rounds_after"] == 5
+    assert len(joined["fixtures_added"]) == 4
+    assert closed["change"] == "venue Ground A closed in round 1"
+    assert closed["assignments_after"] < closed["assignments_before"]
+    code, _, err = cli("whatif", book, "--rounds", "5", "--close", "Grund A,1")
+    assert code == 2
+    assert "did you mean 'Ground A'?" in err
