@@ -25,6 +25,8 @@ Number = int | engine.Estimate | None
 Progress = Callable[[float, str], None]
 RANGE_ABOVE_MIN = 4  # default table: fewest rounds up to fewest + 4
 POLYNOMIAL_SHARE = 0.5  # at most this share of the remaining budget goes to the polynomial
+RETURN_HALF = ("return half: with K rounds, first legs in rounds 1..H and return fixtures in "
+               "rounds H+1..K, H = K/2 rounded up")
 
 
 @dataclass
@@ -52,6 +54,8 @@ class CountReport:
     complete: bool = True  # False when the budget ran out or the work was cancelled
     cancelled: bool = False
     notes: list[str] = field(default_factory=list)  # e.g. pins or ties that contradict clashes
+    rules_counted: list[str] = field(default_factory=list)  # in words: what the counts include
+    rules_generator: list[str] = field(default_factory=list)  # enforced by the generator only
 
     @property
     def polynomial_text(self) -> str | None:
@@ -154,6 +158,9 @@ def count_report(
         min_rounds=None,
         min_rounds_bounds=_bounds(base),
         notes=list(base.contradictions),
+        rules_counted=[RETURN_HALF if rule.startswith("return half") else rule
+                       for rule in base.rules_counted],
+        rules_generator=list(base.rules_generator),
     )
     try:
         found = clock.run(lambda: base.fewest_rounds(clock.hooks("fewest rounds", 0.0, 0.2)))

@@ -115,6 +115,9 @@ def counts_json(report: CountReport) -> dict:
             for row in report.rows
         ],
         "complete": report.complete,
+        "rules_counted": report.rules_counted,
+        "rules_generator": report.rules_generator,
+        "notes": report.notes,
     }
 
 
@@ -138,6 +141,13 @@ def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool
     if report.pinned:
         print("(The polynomial and the groupings are of the clash graph itself; assignments and "
               "every-round-used respect the pins, ties, played and blocked rounds.)", file=out)
+    for note in report.notes:
+        print(f"Note: {note}", file=out)
+    if report.rules_counted:
+        print("Counts include: " + "; ".join(report.rules_counted), file=out)
+    if report.rules_generator:
+        print("Not in the counts (only the schedule generator enforces them): "
+              + "; ".join(report.rules_generator), file=out)
     print("", file=out)
     print("Rounds | Assignments | Every round used | Groupings", file=out)
     for row in report.rows:

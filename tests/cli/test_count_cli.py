@@ -131,3 +131,15 @@ def test_no_window_prints_the_reason_and_the_demo_counts(cli, monkeypatch) -> No
     # the demo season: two six-team divisions, 30 fixtures, 6 rounds at the fewest
     assert out.startswith("Hollowmere Junior League: 30 fixtures, 137 clashing pairs\n")
     assert "Fewest rounds: 6\n" in out
+
+
+def test_count_says_which_rules_it_includes(cli, demo) -> None:
+    code, out, _ = cli("count", str(demo / "schedules.xlsx"), "--rounds", "10", "--json")
+    assert code == 0
+    data = json.loads(out)
+    assert data["pinned"] is True
+    assert data["min_rounds"] == 10
+    assert data["rules_counted"][0] == "clashes: 256 pairs of fixtures never share a round"
+    assert any(r.startswith("played: 6 fixtures frozen") for r in data["rules_counted"])
+    assert data["rules_generator"][0] == (
+        "venue capacity: Kestrelmoor Rec hosts at most 2 fixtures a round (2 pitches)")
