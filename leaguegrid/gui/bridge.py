@@ -230,7 +230,7 @@ def schedule_summary(schedule: Schedule) -> str:
     if schedule.rules_generator:
         parts.append("Enforced by the generator only: " + "; ".join(schedule.rules_generator)
                      + ".")
-    parts += [n if n.endswith(".") else n + "." for n in schedule.notes]
+    parts += [(n[:1].upper() + n[1:]).rstrip(".") + "." for n in schedule.notes]
     return " ".join(parts)
 
 

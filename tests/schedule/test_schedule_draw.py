@@ -47,7 +47,7 @@ def test_plan_without_rules_is_a_valid_uniform_draw():
     assert check_schedule(lg, g, s) == []
     assert out.assignments == s.assignments == len(brute(lg, g, 4))
     assert (s.seed, s.method, s.rounds) == (17, "uniform", 4)
-    assert s.notes == [f"drawn uniformly from all {out.assignments} valid assignments"]
+    assert s.notes == [f"drawn uniformly from all {out.assignments:,} valid assignments"]
     assert s.rules_counted == ["clashes: 12 pairs of fixtures never share a round"]
     assert s.rules_generator == []
 
@@ -99,7 +99,7 @@ def test_rules_kept_by_rejection_and_the_share_reported():
     assert out.schedule.assignment == met[0]
     assert out.schedule.notes == [
         f"{len(met)} of 50 draws met every rule",
-        f"drawn uniformly from all {out.assignments} valid assignments and kept as the first "
+        f"drawn uniformly from all {out.assignments:,} valid assignments and kept as the first "
         "to meet every rule",
     ]
     assert out.schedule.rules_generator == [
