@@ -1,6 +1,11 @@
 """Benchmark runner: times the engine on the shared benchmark graphs and the demo leagues.
 
-    python -m leaguegrid.bench [CASE ...] [--mode poly|fixed|table] [--reference sage|networkx]
+    python -m leaguegrid.bench [CASE ...] [--mode poly|fixed|table|cancel]
+                               [--reference sage|networkx]
+
+Modes: poly (the whole polynomial), fixed (the published fixed-K counts, checked), table
+(the fewest rounds and the counts table up to fewest + 4), cancel (cancel a running
+polynomial from another thread after 2 s and time how long the engine takes to return).
 
 Each case runs in a fresh child process (so the peak resident memory is that case's own),
 with a time limit. The graphs come from ../shared/bench/cases.py beside the repository
@@ -92,6 +97,7 @@ def run_one(G: nx.Graph, mode: str, k: int | None) -> dict:
     from leaguegrid import engine
 
     t = time.perf_counter()
+    c = time.process_time()
     if mode == "poly":
         p = engine.chromatic_polynomial(G)
         coeffs = [int(c) for c in reversed(p.coeffs())]
@@ -102,16 +108,19 @@ def run_one(G: nx.Graph, mode: str, k: int | None) -> dict:
         text = str(value)
     else:
         low = engine.min_rounds(G)
-        rows = []
-        for kk in range(low, low + 5):
-            rows.append(
-                (kk, engine.count_assignments(G, kk), engine.count_all_rounds_used(G, kk))
-            )
-        text = repr((low, rows))
+        table = engine.count_table(G, range(low, low + 5))
+        text = repr((low, sorted(table.items())))
         value = None
     seconds = time.perf_counter() - t
+    cpu = time.process_time() - c
     peak = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024  # KiB -> MiB on Linux
-    return {"seconds": seconds, "peak_mib": peak, "digest": digest(text), "value": value}
+    return {
+        "seconds": seconds,
+        "cpu": cpu,
+        "peak_mib": peak,
+        "digest": digest(text),
+        "value": value,
+    }
 
 
 def child(args: argparse.Namespace) -> None:
@@ -170,10 +179,38 @@ def fmt(x: float | None) -> str:
     return "-" if x is None else f"{x:.3f}"
 
 
+def cancel_latency(G: nx.Graph, after: float) -> tuple[float, str]:
+    """Start the exact polynomial in a thread, cancel it after `after` seconds: the seconds
+    until the engine returned, and how it ended."""
+    import threading
+
+    from leaguegrid import engine
+
+    cancel = threading.Event()
+    ended: list[str] = []
+
+    def work() -> None:
+        try:
+            engine.chromatic_polynomial(G, engine.Hooks(cancel=cancel))
+            ended.append("finished")
+        except engine.Cancelled:
+            ended.append("cancelled")
+        except engine.BudgetExceeded as exc:
+            ended.append(f"stopped: {exc}")
+
+    t = threading.Thread(target=work, daemon=True)
+    t.start()
+    t.join(after)
+    cancel.set()
+    asked = time.perf_counter()
+    t.join()
+    return time.perf_counter() - asked, ended[0] if ended else "no answer"
+
+
 def main(argv: list[str] | None = None) -> int:
     ap = argparse.ArgumentParser(prog="python -m leaguegrid.bench", description=__doc__)
     ap.add_argument("cases_wanted", nargs="*", metavar="CASE", help="cases to run (default all)")
-    ap.add_argument("--mode", choices=["poly", "fixed", "table"], default="poly")
+    ap.add_argument("--mode", choices=["poly", "fixed", "table", "cancel"], default="poly")
     ap.add_argument("--reference", choices=["sage", "networkx"])
     ap.add_argument("--refpython", default="/tmp/refenv/bin/python")
     ap.add_argument("--cases", default=str(DEFAULT_CASES))
@@ -185,6 +222,12 @@ def main(argv: list[str] | None = None) -> int:
         child(args)
         return 0
     cases = load_cases(Path(args.cases))
+    if args.mode == "cancel":
+        print(f"{'case':<16}{'cancel -> return s':>20}  outcome")
+        for name in args.cases_wanted or ["roundrobin-8", "clubday-60", "rook-5x5"]:
+            latency, how = cancel_latency(graph_of(*cases.CASES[name]), 2.0)
+            print(f"{name:<16}{latency:>20.3f}  {how}", flush=True)
+        return 0
     hpr = hpr_times(Path(args.cases).parent / "README.md")
     jobs: list[tuple[str, int | None, int | None, nx.Graph]] = []
     if args.mode == "fixed":
@@ -200,7 +243,8 @@ def main(argv: list[str] | None = None) -> int:
             jobs.append((name, None, None, G))
     if args.cases_wanted:
         jobs = [j for j in jobs if j[0] in args.cases_wanted]
-    head = f"{'case':<16}{'V':>4}{'E':>5}{'K':>4}{'seconds':>10}{'peak MiB':>10}  {'digest':<14}"
+    head = f"{'case':<16}{'V':>4}{'E':>5}{'K':>4}{'seconds':>10}{'cpu s':>9}{'peak MiB':>10}"
+    head += f"  {'digest':<14}"
     if args.reference:
         head += f"{args.reference + ' s':>12}{'ratio':>9}"
     if args.mode == "poly":
@@ -212,14 +256,14 @@ def main(argv: list[str] | None = None) -> int:
         secs = res.get("seconds") if res else None
         line = f"{name:<16}{G.number_of_nodes():>4}{G.number_of_edges():>5}{k or '':>4}"
         if res is None:
-            line += f"{'>' + str(int(args.limit)):>10}{'-':>10}  {'not finished':<14}"
+            line += f"{'>' + str(int(args.limit)):>10}{'-':>9}{'-':>10}  {'not finished':<14}"
         elif "error" in res:
             line += f"  error: {res['error']}"
         else:
             dg = res["digest"]
             if expected is not None:
                 dg = "ok" if res["value"] == expected else f"WRONG {res['value']}"
-            line += f"{secs:>10.3f}{res['peak_mib']:>10.0f}  {dg:<14}"
+            line += f"{secs:>10.3f}{res['cpu']:>9.3f}{res['peak_mib']:>10.0f}  {dg:<14}"
         if args.reference:
             ref = reference(name, args.reference, args.refpython, args.limit)
             rsec = ref["seconds"] if ref else None

@@ -2,13 +2,16 @@
 rounds, uniform draws and labelled estimates. Pure: no Qt, no file I/O."""
 
 from .api import (
+    RoundsProof,
     chromatic_polynomial,
     count_all_rounds_used,
     count_assignments,
+    count_table,
     estimate_assignments,
     groupings,
     min_rounds,
     min_rounds_bounds,
+    min_rounds_proof,
     sample_assignment,
     sample_assignments,
 )
@@ -23,14 +26,17 @@ __all__ = [
     "Estimate",
     "Hooks",
     "NoAssignment",
+    "RoundsProof",
     "chromatic_polynomial",
     "count_all_rounds_used",
     "count_assignments",
+    "count_table",
     "estimate_assignments",
     "estimate_cost",
     "groupings",
     "min_rounds",
     "min_rounds_bounds",
+    "min_rounds_proof",
     "sample_assignment",
     "sample_assignments",
 ]

@@ -6,6 +6,7 @@ import itertools
 import math
 import random
 from collections.abc import Hashable, Iterable, Mapping
+from dataclasses import dataclass
 
 import networkx as nx
 from flint import fmpz_poly
@@ -118,17 +119,30 @@ def count_all_rounds_used(
     exclusions: Exclusions | None = None,
     hooks: Hooks | None = None,
 ) -> int:
-    """Exact number of assignments to rounds 1..k that use every round.
-
-    Inclusion-exclusion over the rounds left empty. Pinned rounds are never empty. The
-    other rounds are grouped by which fixtures exclude them; rounds in one group are
-    interchangeable, so only how many of each group are left out matters."""
+    """Exact number of assignments to rounds 1..k that use every round."""
     _check_k(k)
     ticker = Ticker(hooks)
     ticker.report(0.0, "starting")
     g, _, ip, ie = _prepare(G, pins, exclusions)
+    out = _all_rounds_used(g, k, ip, ie, ticker)
+    ticker.report(1.0, "done")
+    return out
+
+
+def _all_rounds_used(
+    g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Ticker
+) -> int:
+    """Assignments using every round 1..k, by inclusion-exclusion over the rounds left empty.
+
+    Without pins or exclusions, one pass gives P(0..k) and the sum is over how many rounds
+    are empty. Pinned rounds are never empty; the other rounds are grouped by the set of
+    fixtures excluding them (rounds in one group are interchangeable), so only how many of
+    each group are left out matters."""
     if k == 0:
         return 1 if g.n == 0 else 0
+    if not ip and not ie:
+        vals = solve.values(g, list(range(k + 1)), ticker)
+        return sum((-1) ** i * math.comb(k, i) * vals[k - i] for i in range(k + 1))
     pinned = set(ip.values())
     groups: dict[frozenset[int], list[int]] = {}
     for r in range(1, k + 1):
@@ -147,8 +161,40 @@ def count_all_rounds_used(
             c = _count_on_rounds(g, rounds, ip, ie, ticker)
         ways = math.prod(math.comb(s, d) for s, d in zip(sizes, drop, strict=True))
         total += (-1) ** sum(drop) * ways * c
-    ticker.report(1.0, "done")
     return total
+
+
+def count_table(
+    G: nx.Graph,
+    ks: Iterable[int],
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> dict[int, tuple[int, int]]:
+    """{k: (assignments, all_rounds_used)} for every k in ks, exact.
+
+    Without pins or exclusions, one pass of the programme gives P(0..max k) and both
+    numbers for every k; with them, each k is counted on its own transformed graph."""
+    wanted = sorted(set(ks))
+    for k in wanted:
+        _check_k(k)
+    ticker = Ticker(hooks)
+    ticker.report(0.0, "starting")
+    g, _, ip, ie = _prepare(G, pins, exclusions)
+    out: dict[int, tuple[int, int]] = {}
+    if not wanted:
+        return out
+    if not ip and not ie:
+        vals = solve.values(g, list(range(max(wanted) + 1)), ticker)
+        for k in wanted:
+            used = sum((-1) ** i * math.comb(k, i) * vals[k - i] for i in range(k + 1))
+            out[k] = (vals[k], used)
+    else:
+        for i, k in enumerate(wanted):
+            with ticker.window(i / len(wanted), (i + 1) / len(wanted)):
+                out[k] = (_count(g, k, ip, ie, ticker), _all_rounds_used(g, k, ip, ie, ticker))
+    ticker.report(1.0, "done")
+    return out
 
 
 def groupings(G: nx.Graph, hooks: Hooks | None = None) -> list[int]:
@@ -193,6 +239,21 @@ def _never_possible(g: Graph, ip: dict[int, int], ie: dict[int, set[int]]) -> st
     return None
 
 
+@dataclass(frozen=True)
+class RoundsProof:
+    """The fewest rounds with its proof both ways.
+
+    `schedule` is a valid assignment with `rounds` rounds; `lower` says why one fewer has
+    none: "clique" (the fixtures in `clique` clash pairwise), "pin" (a fixture is pinned to
+    round `rounds`), or "search" (an exhaustive search with one round fewer found nothing).
+    """
+
+    rounds: int
+    schedule: dict[Hashable, int]
+    lower: str
+    clique: list[Hashable]
+
+
 def min_rounds(
     G: nx.Graph,
     pins: Pins | None = None,
@@ -201,20 +262,43 @@ def min_rounds(
 ) -> int:
     """The fewest rounds that admit a valid assignment (exact; raises NoAssignment when
     pins contradict the clashes, BudgetExceeded or Cancelled when stopped)."""
+    return min_rounds_proof(G, pins, exclusions, hooks).rounds
+
+
+def min_rounds_proof(
+    G: nx.Graph,
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> RoundsProof:
+    """The fewest rounds, a schedule using them, and why one fewer is impossible."""
     ticker = Ticker(hooks)
     ticker.report(0.0, "starting")
-    g, _, ip, ie = _prepare(G, pins, exclusions)
+    g, nodes, ip, ie = _prepare(G, pins, exclusions)
     why = _never_possible(g, ip, ie)
     if why:
         raise NoAssignment(why)
-    k = _lower_bound(g, ip, ticker)
-    while g.n:
+    if g.n == 0:
+        return RoundsProof(0, {}, "clique", [])
+    clique = max_clique(g, ticker)
+    top_pin = max(ip.values(), default=0)
+    k = max(len(clique), top_pin, 1)
+    start = k
+    while True:
         doms = domains_for(g.n, k, ip, ie)
-        if doms is not None and find_assignment(g, k, doms, ticker, _special(k, ip, ie)):
+        found = find_assignment(g, k, doms, ticker, _special(k, ip, ie)) if doms else None
+        if found:
             break
         k += 1
+    if k > start:
+        lower = "search"
+    elif len(clique) == k:
+        lower = "clique"
+    else:
+        lower = "pin"
     ticker.report(1.0, "done")
-    return k
+    schedule = {node: found[i] for i, node in enumerate(nodes)}
+    return RoundsProof(k, schedule, lower, [nodes[i] for i in clique])
 
 
 def min_rounds_bounds(

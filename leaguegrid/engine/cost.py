@@ -15,7 +15,7 @@ from dataclasses import dataclass
 
 import networkx as nx
 
-from .frontier import State, _step_masks, successors
+from .frontier import State, step_masks, successors
 from .graph import Graph, from_networkx
 from .hooks import Ticker
 from .orders import best_order, frontier_sizes, partitions_bound
@@ -35,8 +35,8 @@ class Cost:
 
 def piece_cost(g: Graph, k: int | None, ticker: Ticker) -> tuple[int, float]:
     """(largest layer, seconds) for one connected piece."""
-    order = best_order(g, k)
-    steps = _step_masks(g, order)
+    order = best_order(g, k, ticker.check)
+    steps = step_masks(g, order)
     widths = frontier_sizes(g, order)
     kk = k if k is not None else g.n + 1
     layer: set[State] = {()}

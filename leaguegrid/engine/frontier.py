@@ -17,13 +17,13 @@ from collections.abc import Callable
 from flint import fmpz_poly
 
 from .graph import Graph
-from .hooks import Ticker
+from .hooks import BudgetExceeded, Ticker
 
 State = tuple[int, ...]
 CHECK_EVERY = 2048
 
 
-def _step_masks(g: Graph, order: list[int]) -> list[tuple[int, int]]:
+def step_masks(g: Graph, order: list[int]) -> list[tuple[int, int]]:
     """For each step: v's bit and v's neighbours among the vertices placed after v."""
     rest = 0
     for v in order:
@@ -80,11 +80,22 @@ def _alive(state: State, k: int) -> bool:
     return common == 0
 
 
-def kronecker_bits(edges: int) -> int:
-    """Bits per coefficient that hold every coefficient of a chromatic polynomial with
-    `edges` edges in signed form: |coefficient of k^(n-i)| <= C(edges, i) (Whitney's
-    broken-circuit theorem), plus a sign bit and a spare."""
-    return max(math.comb(edges, i) for i in range(edges + 1)).bit_length() + 2
+def kronecker_bits(n: int, edges: int) -> int:
+    """Bits per coefficient that hold every coefficient of the chromatic polynomial of a
+    graph with n vertices and `edges` edges, in signed form, plus a spare bit.
+
+    |coefficient of k^(n-i)| <= C(edges, i) (Whitney's broken-circuit theorem), and
+    <= the same coefficient of K_n, the unsigned Stirling number of the first kind
+    (deletion-contraction adds absolute values, so adding edges never lowers them)."""
+    first = [1]  # unsigned Stirling numbers of the first kind, row n: x(x+1)...(x+n-1)
+    for j in range(n):
+        first = [0, *first]
+        for i in range(len(first) - 1):
+            first[i] += j * first[i + 1]
+    bound = max(
+        min(math.comb(edges, i), first[n - i]) for i in range(min(edges, n) + 1)
+    )
+    return bound.bit_length() + 2
 
 
 def unpack(value: int, bits: int, degree: int) -> fmpz_poly:
@@ -103,7 +114,7 @@ def unpack(value: int, bits: int, degree: int) -> fmpz_poly:
     return fmpz_poly(coeffs)
 
 
-Check = Callable[[], None]
+Check = Callable[[int], None]
 
 
 def advance_packed(layer: dict, vb: int, nb: int, shift: int, check: Check) -> dict:
@@ -114,7 +125,7 @@ def advance_packed(layer: dict, vb: int, nb: int, shift: int, check: Check) -> d
     for state, w in layer.items():
         tick += 1
         if tick & 4095 == 0:
-            check()
+            check(len(new))
         base: list[int] = []
         joinable: list[int] = []
         for f in state:
@@ -154,7 +165,7 @@ def advance_at(layer: dict, vb: int, nb: int, k: int, check: Check) -> dict:
     for state, w in layer.items():
         tick += 1
         if tick & 4095 == 0:
-            check()
+            check(len(new))
         base: list[int] = []
         joinable: list[int] = []
         for f in state:
@@ -201,7 +212,7 @@ def advance_many(layer: dict, vb: int, nb: int, ks: tuple[int, ...], check: Chec
     for state, w in layer.items():
         tick += 1
         if tick & 4095 == 0:
-            check()
+            check(len(new))
         base: list[int] = []
         joinable: list[int] = []
         for f in state:
@@ -241,20 +252,87 @@ def advance_many(layer: dict, vb: int, nb: int, ks: tuple[int, ...], check: Chec
 ADVANCE = {"packed": advance_packed, "at": advance_at, "many": advance_many}
 
 
+MEMORY_BYTES = 480 * 2**20  # bound on one state table; two are alive at a time
+
+
+def _state_bytes(mode: str, param: object, step: int) -> int:
+    """Rough bytes per stored state (key, dict slot, weight) at a given step."""
+    if mode == "packed":
+        return 320 + (step + 1) * int(param) // 8  # packed weight grows by B bits a step
+    if mode == "many":
+        return 360 + 40 * len(param)
+    return 350
+
+
+def _guard(ticker: Ticker, limit: int, step: int, n: int) -> Check:
+    """The check called while a table grows: cancel, budget, and the memory bound."""
+
+    def check(size: int) -> None:
+        ticker.check()
+        if size > limit:
+            raise BudgetExceeded(
+                f"state table passed the memory bound ({size} states at step {step + 1} of {n})"
+            )
+
+    return check
+
+
+VECTOR_THRESHOLD = 20_000  # fixed-k tables at least this large move to numpy arrays
+
+
 def run(g: Graph, order: list[int], mode: str, param: object, one: object, ticker: Ticker):
     """Run the programme over `order` with the step function of `mode`: the final weight,
-    or None when every state died."""
+    or None when every state died. Raises BudgetExceeded when a state table would pass
+    the memory bound. Fixed-k tables that grow large continue on numpy arrays
+    (vectorized.py) when at most 64 fixtures are on the boundary at a time."""
     advance = ADVANCE[mode]
-    steps = _step_masks(g, order)
+    steps = step_masks(g, order)
     n = len(steps)
     layer: dict = {(): one}
+    vector = mode != "packed"
     for i, (vb, nb) in enumerate(steps):
         ticker.report(i / max(n, 1), "counting")
-        layer = advance(layer, vb, nb, param, ticker.check)
+        if vector and len(layer) >= VECTOR_THRESHOLD:
+            done = _vector_finish(g, order, i, layer, mode, param, ticker)
+            if done is not _NOT_VECTOR:
+                ticker.report(1.0, "counting")
+                return done
+            vector = False
+        check = _guard(ticker, MEMORY_BYTES // _state_bytes(mode, param, i), i, n)
+        layer = advance(layer, vb, nb, param, check)
+        check(len(layer))
         if not layer:
             return None
     ticker.report(1.0, "counting")
     return layer.get(())
+
+
+_NOT_VECTOR = object()
+
+
+def _vector_finish(g, order, start, layer, mode, param, ticker):
+    """The rest of a fixed-k programme on arrays, or _NOT_VECTOR when it does not fit."""
+    from . import vectorized
+
+    ks = (param,) if mode == "at" else tuple(param)
+    try:
+        vectorized.slot_steps(g, order, start)
+    except OverflowError:
+        return _NOT_VECTOR
+    n = len(order)
+    lines = len(ks) * len(vectorized.primes_for(max(vectorized.count_bound(g, order, max(ks)), 1)))
+
+    def check_for(step: int) -> Check:
+        limit = MEMORY_BYTES // vectorized.bytes_per_row(max(ks), lines)
+        return _guard(ticker, limit, step, n)
+
+    def progress(step: int) -> None:
+        ticker.report(step / max(n, 1), "counting")
+
+    got = vectorized.finish(g, order, start, layer, ks, check_for, progress)
+    if got is None:
+        return None
+    return got[0] if mode == "at" else got
 
 
 def count_polynomial(g: Graph, order: list[int], ticker: Ticker) -> fmpz_poly:
@@ -266,7 +344,7 @@ def count_polynomial(g: Graph, order: list[int], ticker: Ticker) -> fmpz_poly:
     coefficient fits. Integer arithmetic on the packed form is several times cheaper than
     polynomial objects.
     """
-    shift = kronecker_bits(g.edges())
+    shift = kronecker_bits(len(order), g.edges())
     packed = run(g, order, "packed", shift, 1, ticker)
     return unpack(packed or 0, shift, len(order))
 
@@ -292,10 +370,12 @@ def completion_tables(
     """For each step i, the states before placing order[i] mapped to their number of
     completions with k rounds (only states that have at least one); the last table is
     the finished state. Used for exactly uniform draws."""
-    steps = _step_masks(g, order)
+    steps = step_masks(g, order)
     n = len(order)
     layers: list[set[State]] = [{()}]
     tick = 0
+    stored = 1
+    limit = MEMORY_BYTES // 600  # every table is kept, with its completion counts
     for step, (vb, nb) in enumerate(steps):
         ticker.report(0.5 * step / max(n, 1), "sampling tables")
         nxt: set[State] = set()
@@ -303,8 +383,13 @@ def completion_tables(
             tick += 1
             if tick % CHECK_EVERY == 0:
                 ticker.check()
+                if stored + len(nxt) > limit:
+                    raise BudgetExceeded(
+                        f"sampling tables passed the memory bound at step {step + 1} of {n}"
+                    )
             for ns, _ in successors(state, vb, nb, k):
                 nxt.add(ns)
+        stored += len(nxt)
         layers.append(nxt)
     tables: list[dict[State, int]] = [{} for _ in layers]
     if () in layers[-1]:

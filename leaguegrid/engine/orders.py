@@ -13,6 +13,7 @@ The search is deterministic, so the same graph always gets the same order.
 from __future__ import annotations
 
 import random
+from collections.abc import Callable
 from functools import lru_cache
 
 from .falling import stirling2_rows
@@ -96,17 +97,27 @@ def greedy_order(
     return order
 
 
-def best_order(g: Graph, k: int | None = None, seed: int = 0, max_tries: int = 300) -> list[int]:
+def best_order(
+    g: Graph,
+    k: int | None = None,
+    check: Callable[[], None] | None = None,
+    seed: int = 0,
+    max_tries: int = 300,
+) -> list[int]:
     """The best-scoring of many greedy orders (deterministic for a given graph and seed).
 
     The number of tries grows with the logarithm of the best score (a proxy for the work
-    the programme will do): one on trivial graphs, up to `max_tries` on the hardest.
+    the programme will do): one on trivial graphs, up to `max_tries` on the hardest, fewer
+    on large graphs where each try costs more. `check` is called between tries (cancel).
     """
     rng = random.Random(seed)
     best = greedy_order(g)
     best_score = score(frontier_sizes(g, best), k)
     tries = 1
-    while tries < min(max_tries, 1 + 8 * max(0, best_score.bit_length() - 10)):
+    limit = min(max_tries, 1 + 8 * max(0, best_score.bit_length() - 10), 500_000 // g.n**2 + 8)
+    while tries < limit:
+        if check is not None:
+            check()
         cand = greedy_order(g, rng)
         s = score(frontier_sizes(g, cand), k)
         if s < best_score:

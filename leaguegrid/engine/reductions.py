@@ -39,11 +39,12 @@ def is_clique(g: Graph, mask: int) -> bool:
     return all(not (mask & ~(1 << u)) & ~g.adj[u] for u in bits(mask))
 
 
-def peel_simplicial(g: Graph) -> tuple[list[int], int]:
-    """Remove simplicial vertices until none is left: (their clique sizes d, the mask of the
-    vertices that remain)."""
+def peel_simplicial(g: Graph) -> tuple[list[tuple[int, int]], int]:
+    """Remove simplicial vertices until none is left: the removed vertices in order, each
+    with its neighbours (a clique) at the time it was removed, and the mask of the vertices
+    that remain."""
     alive = (1 << g.n) - 1
-    linear: list[int] = []
+    peeled: list[tuple[int, int]] = []
     todo = list(range(g.n))
     queued = alive
     while todo:
@@ -53,12 +54,12 @@ def peel_simplicial(g: Graph) -> tuple[list[int], int]:
             continue
         nb = g.adj[v] & alive
         if is_clique(g, nb):
-            linear.append(nb.bit_count())
+            peeled.append((v, nb))
             alive &= ~(1 << v)
             for u in bits(nb & ~queued):
                 todo.append(u)
                 queued |= 1 << u
-    return linear, alive
+    return peeled, alive
 
 
 def find_clique_separator(g: Graph) -> tuple[int, int] | None:
@@ -106,8 +107,8 @@ def plan(g: Graph) -> Plan:
 
 
 def _reduce(g: Graph, out: Plan) -> None:
-    linear, alive = peel_simplicial(g)
-    out.linear.extend(linear)
+    peeled, alive = peel_simplicial(g)
+    out.linear.extend(nb.bit_count() for _, nb in peeled)
     if not alive:
         return
     core = g.induced(list(bits(alive)))

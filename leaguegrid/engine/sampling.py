@@ -12,9 +12,10 @@ from __future__ import annotations
 import random
 
 from .frontier import State, completion_tables
-from .graph import Graph, components
+from .graph import Graph, bits, components
 from .hooks import Ticker
 from .orders import greedy_order
+from .reductions import peel_simplicial
 
 
 class PieceSampler:
@@ -67,18 +68,30 @@ class PieceSampler:
 
 
 class Sampler:
-    """Uniform colourings of a whole graph: independent uniform draws per component."""
+    """Uniform colourings of a whole graph.
+
+    Simplicial vertices are peeled first (reductions.py); the rest is drawn per connected
+    component from the programme's tables, then the peeled vertices are put back in reverse
+    order, each in a round drawn uniformly from the k - d its clique of d neighbours leaves
+    free. Every colouring of the rest extends in exactly the same number of ways, so the
+    draw stays exactly uniform.
+    """
 
     def __init__(self, g: Graph, k: int, ticker: Ticker) -> None:
         self.g = g
-        self.comps = components(g)
+        self.k = k
+        self.peeled, alive = peel_simplicial(g)
+        self.core = list(bits(alive))
+        core = g.induced(self.core)
+        self.comps = components(core)
         self.pieces: list[PieceSampler] = []
         self.possible = k > 0 and not (g.loop and g.n)
+        self.possible = self.possible and all(nb.bit_count() < k for _, nb in self.peeled)
         if not self.possible:
             return
         for i, comp in enumerate(self.comps):
             with ticker.window(i / len(self.comps), (i + 1) / len(self.comps)):
-                piece = PieceSampler(g.induced(comp), k, ticker)
+                piece = PieceSampler(core.induced(comp), k, ticker)
             if piece.total == 0:
                 self.possible = False
                 return
@@ -89,7 +102,11 @@ class Sampler:
         colours = [0] * self.g.n
         for comp, piece in zip(self.comps, self.pieces, strict=True):
             for v, c in zip(comp, piece.draw(rng), strict=True):
-                colours[v] = c
+                colours[self.core[v]] = c
+        for v, nb in reversed(self.peeled):
+            taken = {colours[u] for u in bits(nb)}
+            free = [r for r in range(1, self.k + 1) if r not in taken]
+            colours[v] = free[rng.randrange(len(free))]
         return colours
 
 

@@ -3,10 +3,14 @@ the frontier programme on each irreducible piece with the best order found."""
 
 from __future__ import annotations
 
+import math
+import threading
+from collections import OrderedDict
+
 from flint import fmpz_poly
 
 from .falling import falling, falling_poly
-from .frontier import count_at, count_polynomial
+from .frontier import count_at, count_many, count_polynomial
 from .graph import Graph
 from .hooks import Ticker
 from .orders import best_order
@@ -25,7 +29,9 @@ def polynomial(g: Graph, ticker: Ticker, reduce: bool = True) -> fmpz_poly:
     if g.loop and g.n:
         return fmpz_poly([])
     if not reduce:
-        return count_polynomial(g, best_order(g), ticker) if g.n else fmpz_poly([1])
+        if g.n == 0:
+            return fmpz_poly([1])
+        return count_polynomial(g, best_order(g, None, ticker.check), ticker)
     p = plan(g)
     result = fmpz_poly([1])
     for d in p.linear:
@@ -33,7 +39,7 @@ def polynomial(g: Graph, ticker: Ticker, reduce: bool = True) -> fmpz_poly:
     pos = 0.0
     for part, share in zip(p.pieces, _shares(p.pieces), strict=True):
         with ticker.window(pos, pos + share):
-            result *= count_polynomial(part, best_order(part), ticker)
+            result *= count_polynomial(part, best_order(part, None, ticker.check), ticker)
         pos += share
     for s in p.divisors:
         result, rem = divmod(result, falling_poly(s))
@@ -43,26 +49,72 @@ def polynomial(g: Graph, ticker: Ticker, reduce: bool = True) -> fmpz_poly:
 
 def value(g: Graph, k: int, ticker: Ticker, reduce: bool = True) -> int:
     """P(g, k) as an exact integer; `reduce=False` skips the reductions."""
+    return values(g, [k], ticker, reduce)[0]
+
+
+_CACHE: OrderedDict[tuple[tuple[int, ...], int], int] = OrderedDict()
+CACHE_SIZE = 4096
+_LOCK = threading.Lock()
+
+
+def values(g: Graph, ks: list[int], ticker: Ticker, reduce: bool = True) -> list[int]:
+    """P(g, k) for each k in ks, in one pass of the programme per piece.
+
+    Results are remembered (per graph and k, most recent 4096) so that a table of counts
+    asked for one number at a time does not repeat work."""
     if g.loop and g.n:
-        return 0
-    if k <= 0:
-        return 1 if g.n == 0 else 0
+        return [0] * len(ks)
     if not reduce:
-        return count_at(g, best_order(g, k), k, ticker) if g.n else 1
+        return [_values(g, [k], ticker, reduce=False)[0] for k in ks]
+    key = tuple(g.adj)
+    with _LOCK:
+        known = {k: _CACHE[(key, k)] for k in set(ks) if (key, k) in _CACHE}
+        for k in known:
+            _CACHE.move_to_end((key, k))
+    todo = sorted(set(ks) - set(known))
+    if todo:
+        known.update(zip(todo, _values(g, todo, ticker, reduce), strict=True))
+        with _LOCK:
+            for k in todo:
+                _CACHE[(key, k)] = known[k]
+            while len(_CACHE) > CACHE_SIZE:
+                _CACHE.popitem(last=False)
+    return [known[k] for k in ks]
+
+
+def _values(g: Graph, ks: list[int], ticker: Ticker, reduce: bool) -> list[int]:
+    """P(g, k) for each k in ks (sorted, distinct), computed."""
+    out = {k: (1 if g.n == 0 else 0) for k in ks if k <= 0}
+    live = [k for k in ks if k > 0]
+    if not live or g.n == 0:
+        return [out.get(k, 1) for k in ks]
+    if not reduce:
+        got = count_many(g, best_order(g, max(live), ticker.check), live, ticker)
+        out.update(zip(live, got, strict=True))
+        return [out[k] for k in ks]
     p = plan(g)
-    if p.clique_bound() > k:
-        return 0
-    result = 1
-    for d in p.linear:
-        result *= k - d
+    bound = p.clique_bound()
+    for k in live:
+        if k < bound:
+            out[k] = 0
+    live = [k for k in live if k >= bound]
+    result = {k: math.prod(k - d for d in p.linear) for k in live}
     pos = 0.0
-    pieces = sorted(p.pieces, key=lambda q: q.n)  # cheap pieces first: a zero ends early
+    pieces = sorted(p.pieces, key=lambda q: q.n)  # cheap pieces first: zeros end early
     for part, share in zip(pieces, _shares(pieces), strict=True):
+        live = [k for k in live if result[k]]
+        if not live:
+            break
         with ticker.window(pos, pos + share):
-            result *= count_at(part, best_order(part, k), k, ticker)
+            if len(live) == 1:
+                got = [count_at(part, best_order(part, live[0], ticker.check), live[0], ticker)]
+            else:
+                got = count_many(part, best_order(part, max(live), ticker.check), live, ticker)
+        for k, v in zip(live, got, strict=True):
+            result[k] *= v
         pos += share
-        if result == 0:
-            return 0
-    for s in p.divisors:
-        result //= falling(k, s)
-    return result
+    for k, v in result.items():
+        for s in p.divisors:
+            v //= falling(k, s)
+        out[k] = v
+    return [out[k] for k in ks]

@@ -5,7 +5,7 @@ from __future__ import annotations
 import networkx as nx
 
 from leaguegrid.engine import Cost, count_assignments, estimate_assignments, estimate_cost
-from leaguegrid.engine.frontier import _step_masks, successors
+from leaguegrid.engine.frontier import step_masks, successors
 from leaguegrid.engine.graph import from_networkx
 from leaguegrid.engine.orders import best_order
 
@@ -43,7 +43,7 @@ def test_cost_of_small_graph_is_its_largest_table() -> None:
     g, _ = from_networkx(G)
     order = best_order(g)
     layer, largest = {()}, 1
-    for vb, nb in _step_masks(g, order):
+    for vb, nb in step_masks(g, order):
         layer = {ns for s in layer for ns, _ in successors(s, vb, nb, g.n + 1)}
         largest = max(largest, len(layer))
     cost = estimate_cost(G)

@@ -66,3 +66,11 @@ def test_bounds_within_budget_are_proven() -> None:
     # The Grotzsch graph (Mycielski of C5): chromatic number 4, largest clique 2 (textbook).
     G = nx.mycielski_graph(4)
     assert min_rounds_bounds(G, hooks=Hooks(budget=5.0)) == (4, 4)
+
+
+def test_memory_bound_stops_exact_work(monkeypatch) -> None:
+    from leaguegrid.engine import frontier
+
+    monkeypatch.setattr(frontier, "MEMORY_BYTES", 200_000)
+    with pytest.raises(BudgetExceeded, match="state table passed the memory bound"):
+        chromatic_polynomial(nx.line_graph(nx.complete_graph(7)))

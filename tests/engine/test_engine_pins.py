@@ -13,6 +13,7 @@ from leaguegrid.engine import (
     NoAssignment,
     count_all_rounds_used,
     count_assignments,
+    count_table,
     min_rounds,
     min_rounds_bounds,
     sample_assignment,
@@ -101,3 +102,11 @@ def test_bad_pins_are_rejected() -> None:
         count_assignments(G, 2, pins={1: 0})
     with pytest.raises(ValueError, match="round count -1 is not a whole number >= 0"):
         count_assignments(G, -1)
+
+
+@pytest.mark.parametrize("seed", range(0, 40, 4))
+def test_count_table_matches_enumeration(seed: int) -> None:
+    G, pins, exclusions = random_case(seed)
+    table = count_table(G, range(0, 6), pins, exclusions)
+    for k in range(0, 6):
+        assert table[k] == (count(G, k, pins, exclusions), count_all_used(G, k, pins, exclusions))

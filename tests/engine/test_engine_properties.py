@@ -154,3 +154,52 @@ def test_clique_separator_split() -> None:
     pa, pb = chromatic_polynomial(a), chromatic_polynomial(b)
     tri = chromatic_polynomial(nx.complete_graph(3))
     assert chromatic_polynomial(G) == pa * pb // tri
+
+
+@SETTINGS
+@given(graphs(max_n=12), st.integers(0, 6))
+def test_array_programme_agrees_with_dict_programme(G: nx.Graph, k: int) -> None:
+    # The numpy path (vectorized.py), forced from the first step, gives the same counts.
+    from leaguegrid.engine import frontier
+    from leaguegrid.engine.orders import greedy_order
+
+    g, _ = from_networkx(G)
+    order = greedy_order(g)
+    ticker = Ticker()
+    ks = list(range(0, 7))
+    plain = [count_at(g, order, j, ticker) for j in ks]
+    saved = frontier.VECTOR_THRESHOLD
+    frontier.VECTOR_THRESHOLD = 1
+    try:
+        assert count_at(g, order, k, ticker) == plain[k]
+        assert count_many(g, order, ks, ticker) == plain
+    finally:
+        frontier.VECTOR_THRESHOLD = saved
+
+
+def test_array_programme_on_published_counts(monkeypatch) -> None:
+    # OEIS A002860 (Latin squares of order 6) and A000438 (6240 one-factorizations of K8),
+    # with the array path taking over early.
+    from leaguegrid.engine import frontier
+
+    monkeypatch.setattr(frontier, "VECTOR_THRESHOLD", 50)
+    rook6 = nx.cartesian_product(nx.complete_graph(6), nx.complete_graph(6))
+    assert count_assignments(rook6, 6) == 812851200
+    assert count_assignments(nx.line_graph(nx.complete_graph(8)), 7) == 6240 * math.factorial(7)
+
+
+def test_hash_collisions_are_caught(monkeypatch) -> None:
+    # A hash that maps every row to one value must not merge different states.
+    import numpy as np
+
+    from leaguegrid.engine import vectorized
+
+    monkeypatch.setattr(vectorized, "_hash", lambda rows: np.zeros(rows.shape[0], np.uint64))
+    from leaguegrid.engine import frontier
+
+    monkeypatch.setattr(frontier, "VECTOR_THRESHOLD", 1)
+    G = nx.petersen_graph()
+    g, _ = from_networkx(G)
+    p = chromatic_polynomial(G)  # the packed-polynomial path does not use arrays
+    assert count_many(g, list(range(10)), [3, 4], Ticker()) == [p(3), p(4)]
+    assert p(3) == 120

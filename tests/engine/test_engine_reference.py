@@ -15,6 +15,7 @@ from leaguegrid.engine import (
     chromatic_polynomial,
     count_all_rounds_used,
     count_assignments,
+    count_table,
     groupings,
 )
 from leaguegrid.engine.falling import falling, stirling2_rows
@@ -162,9 +163,12 @@ def test_disjoint_pieces_multiply() -> None:
 def test_all_rounds_used_matches_groupings() -> None:
     for G in (nx.petersen_graph(), round_robin(5), nx.cycle_graph(7)):
         a = groupings(G)
+        p = chromatic_polynomial(G)
+        table = count_table(G, range(0, 8))
         for k in range(0, 8):
             expect = a[k] * math.factorial(k) if k < len(a) else 0
             assert count_all_rounds_used(G, k) == expect
+            assert table[k] == (p(k), expect)
 
 
 def test_brute_force_counts_small() -> None:

@@ -47,6 +47,16 @@ def test_uniform_with_pins_and_exclusions() -> None:
     assert stat < chi_square_limit(df)
 
 
+def test_uniform_on_graph_with_a_core_left_for_the_tables() -> None:
+    # A 5-cycle (not chordal: it stays for the counting tables) with two pendant fixtures
+    # (peeled and put back): 3 rounds, 30 x 2 x 2 = 120 valid assignments.
+    G = nx.cycle_graph(5)
+    G.add_edges_from([(0, 5), (2, 6)])
+    stat, df = chi_square(G, 3)
+    assert df + 1 == 120
+    assert stat < chi_square_limit(df)
+
+
 def test_uniform_two_components() -> None:
     G = nx.disjoint_union(nx.path_graph(3), nx.complete_graph(2))
     stat, df = chi_square(G, 3)
