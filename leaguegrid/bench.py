@@ -1,11 +1,13 @@
 """Benchmark runner: times the engine on the shared benchmark graphs and the demo leagues.
 
-    python -m leaguegrid.bench [CASE ...] [--mode poly|fixed|table|cancel]
+    python -m leaguegrid.bench [CASE ...] [--mode poly|fixed|table|cancel|window]
                                [--reference sage|networkx]
 
 Modes: poly (the whole polynomial), fixed (the published fixed-K counts, checked), table
 (the fewest rounds and the counts table up to fewest + 4), cancel (cancel a running
-polynomial from another thread after 2 s and time how long the engine takes to return).
+polynomial from another thread after 2 s and time how long the engine takes to return),
+window (the desktop window counts a demo league for 4 s, offscreen, while a 10 ms timer
+measures the event loop's largest gap; then Cancel; target: largest gap under 200 ms).
 
 Each case runs in a fresh child process (so the peak resident memory is that case's own),
 with a time limit. The graphs come from ../shared/bench/cases.py beside the repository
@@ -207,10 +209,23 @@ def cancel_latency(G: nx.Graph, after: float) -> tuple[float, str]:
     return time.perf_counter() - asked, ended[0] if ended else "no answer"
 
 
+def window_latency(leagues: list[str]) -> int:
+    """The window's responsiveness while the engine counts each demo league, then Cancel."""
+    from leaguegrid.gui.benchprobe import measure
+
+    print(f"{'league':<16}{'largest gap ms':>16}{'p99 gap ms':>12}{'cancel s':>10}")
+    for name in leagues:
+        got = measure(REPO / "demo_leagues" / f"{name}.xlsx", seconds=4.0)
+        print(f"{name:<16}{got['largest_gap_ms']:>16.0f}{got['p99_gap_ms']:>12.0f}"
+              f"{got['cancel_seconds']:>10.2f}", flush=True)
+    return 0
+
+
 def main(argv: list[str] | None = None) -> int:
     ap = argparse.ArgumentParser(prog="python -m leaguegrid.bench", description=__doc__)
     ap.add_argument("cases_wanted", nargs="*", metavar="CASE", help="cases to run (default all)")
-    ap.add_argument("--mode", choices=["poly", "fixed", "table", "cancel"], default="poly")
+    ap.add_argument("--mode", choices=["poly", "fixed", "table", "cancel", "window"],
+                    default="poly")
     ap.add_argument("--reference", choices=["sage", "networkx"])
     ap.add_argument("--refpython", default="/tmp/refenv/bin/python")
     ap.add_argument("--cases", default=str(DEFAULT_CASES))
@@ -221,6 +236,8 @@ def main(argv: list[str] | None = None) -> int:
     if args.one:
         child(args)
         return 0
+    if args.mode == "window":
+        return window_latency(args.cases_wanted or ["bigseason"])
     cases = load_cases(Path(args.cases))
     if args.mode == "cancel":
         print(f"{'case':<16}{'cancel -> return s':>20}  outcome")

@@ -12,7 +12,13 @@ import networkx as nx
 from flint import fmpz_poly
 
 from . import solve
-from .chromatic_number import domains_for, find_assignment, greedy_assignment, max_clique
+from .chromatic_number import (
+    domains_for,
+    find_assignment,
+    greedy_assignment,
+    greedy_pass,
+    max_clique,
+)
 from .estimate import Estimate, sis_estimate
 from .falling import falling, to_falling
 from .graph import Graph, from_networkx
@@ -284,12 +290,13 @@ def min_rounds_proof(
     top_pin = max(ip.values(), default=0)
     k = max(len(clique), top_pin, 1)
     start = k
-    while True:
+    doms = domains_for(g.n, k, ip, ie)
+    found = greedy_pass(g, doms) if doms else None
+    while not found:
         doms = domains_for(g.n, k, ip, ie)
         found = find_assignment(g, k, doms, ticker, _special(k, ip, ie)) if doms else None
-        if found:
-            break
-        k += 1
+        if not found:
+            k += 1
     if k > start:
         lower = "search"
     elif len(clique) == k:

@@ -11,9 +11,10 @@ from __future__ import annotations
 from collections.abc import Callable, Mapping, Set
 
 from .graph import Graph, bits
-from .hooks import Ticker
+from .hooks import BudgetExceeded, Ticker
 
 CHECK_EVERY = 1024
+MAX_SEARCH = 900  # the search recurses once per fixture
 
 
 def max_clique(g: Graph, ticker: Ticker) -> list[int]:
@@ -93,9 +94,12 @@ def find_assignment(
     """A colouring (rounds 1..k per vertex) within `domains`, or None when none exists.
 
     `special` is the bitmask of rounds mentioned by pins or exclusions (not interchangeable).
-    Raises StopIteration when `node_limit` search nodes are used without an answer.
+    Raises StopIteration when `node_limit` search nodes are used without an answer, and
+    BudgetExceeded for graphs too large for the recursive search.
     """
     n = g.n
+    if n > MAX_SEARCH:
+        raise BudgetExceeded(f"{n} fixtures are too many for the exhaustive search")
     adj = g.adj
     if g.loop and n:
         return None
@@ -168,7 +172,7 @@ def greedy_assignment(
     while True:
         doms = domains_of(k)
         if doms is not None:
-            col = _greedy_pass(g, doms)
+            col = greedy_pass(g, doms)
             if col is not None:
                 return k, col
         k += 1
@@ -177,7 +181,7 @@ def greedy_assignment(
         ticker.check()
 
 
-def _greedy_pass(g: Graph, domains: list[int]) -> list[int] | None:
+def greedy_pass(g: Graph, domains: list[int]) -> list[int] | None:
     """One DSatur pass without backtracking: lowest allowed round for the most constrained."""
     n = g.n
     colour = [0] * n

@@ -10,10 +10,11 @@ from collections import OrderedDict
 from flint import fmpz_poly
 
 from .falling import falling, falling_poly
-from .frontier import count_at, count_many, count_polynomial
+from .frontier import count_many, count_polynomial
 from .graph import Graph
 from .hooks import Ticker
-from .orders import best_order
+from .orders import best_order, frontier_sizes, score
+from .parallel import solve_pieces
 from .reductions import plan
 
 
@@ -36,11 +37,11 @@ def polynomial(g: Graph, ticker: Ticker, reduce: bool = True) -> fmpz_poly:
     result = fmpz_poly([1])
     for d in p.linear:
         result *= fmpz_poly([-d, 1])
-    pos = 0.0
-    for part, share in zip(p.pieces, _shares(p.pieces), strict=True):
-        with ticker.window(pos, pos + share):
-            result *= count_polynomial(part, best_order(part, None, ticker.check), ticker)
-        pos += share
+    orders = [best_order(part, None, ticker.check) for part in p.pieces]
+    scores = [score(frontier_sizes(q, o), None) for q, o in zip(p.pieces, orders, strict=True)]
+    got = solve_pieces("poly", p.pieces, orders, scores, None, ticker, _shares(p.pieces))
+    for piece_poly in got:
+        result *= piece_poly
     for s in p.divisors:
         result, rem = divmod(result, falling_poly(s))
         assert rem == 0, "clique separator division is exact"
@@ -99,20 +100,23 @@ def _values(g: Graph, ks: list[int], ticker: Ticker, reduce: bool) -> list[int]:
             out[k] = 0
     live = [k for k in live if k >= bound]
     result = {k: math.prod(k - d for d in p.linear) for k in live}
-    pos = 0.0
+    if not live:
+        return [out[k] for k in ks]
     pieces = sorted(p.pieces, key=lambda q: q.n)  # cheap pieces first: zeros end early
-    for part, share in zip(pieces, _shares(pieces), strict=True):
-        live = [k for k in live if result[k]]
-        if not live:
-            break
-        with ticker.window(pos, pos + share):
-            if len(live) == 1:
-                got = [count_at(part, best_order(part, live[0], ticker.check), live[0], ticker)]
-            else:
-                got = count_many(part, best_order(part, max(live), ticker.check), live, ticker)
-        for k, v in zip(live, got, strict=True):
+    kind, param = ("at", live[0]) if len(live) == 1 else ("many", live)
+    orders = [best_order(part, max(live), ticker.check) for part in pieces]
+    scores = [score(frontier_sizes(q, o), max(live)) for q, o in zip(pieces, orders, strict=True)]
+
+    def all_zero(got: object) -> bool:
+        return not any(got if isinstance(got, list) else [got])
+
+    got = solve_pieces(kind, pieces, orders, scores, param, ticker, _shares(pieces), all_zero)
+    if any(all_zero(x) for x in got if x is not None):
+        got = [[0] * len(live)]
+    for piece_counts in got:
+        counts = piece_counts if isinstance(piece_counts, list) else [piece_counts]
+        for k, v in zip(live, counts, strict=True):
             result[k] *= v
-        pos += share
     for k, v in result.items():
         for s in p.divisors:
             v //= falling(k, s)

@@ -7,7 +7,7 @@ import math
 import random
 
 import networkx as nx
-import pytest
+import sympy  # networkx.chromatic_polynomial returns sympy expressions
 from flint import fmpz_poly
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
@@ -22,8 +22,6 @@ from leaguegrid.engine.falling import from_falling
 from leaguegrid.engine.frontier import count_at, count_many, count_polynomial
 from leaguegrid.engine.graph import from_networkx
 from leaguegrid.engine.hooks import Ticker
-
-sympy = pytest.importorskip("sympy")
 
 SETTINGS = settings(max_examples=40, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 

@@ -9,6 +9,7 @@ import random
 
 import networkx as nx
 import pytest
+import sympy  # networkx.chromatic_polynomial returns sympy expressions
 from flint import fmpz_poly
 
 from leaguegrid.engine import (
@@ -19,8 +20,6 @@ from leaguegrid.engine import (
     groupings,
 )
 from leaguegrid.engine.falling import falling, stirling2_rows
-
-sympy = pytest.importorskip("sympy")
 
 
 def coeffs(p: fmpz_poly) -> list[int]:

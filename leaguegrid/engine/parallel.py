@@ -1,0 +1,134 @@
+"""Independent pieces on both cores: the heaviest piece runs in a second process.
+
+After the reductions a graph may fall into several irreducible pieces whose programmes do
+not interact. When at least two of them are heavy (by the order score), the heaviest is
+computed in a child process while this process does the others. The parent checks cancel
+and budget while it waits and kills the child when it stops; the child keeps half the
+memory bound. Set LEAGUEGRID_ENGINE_PROCESSES=1 to keep everything in one process.
+
+(Splitting one programme's layers between two processes was measured and rejected: the
+exchange of states after every step cost as much CPU as it saved.)
+"""
+
+from __future__ import annotations
+
+import multiprocessing as mp
+import os
+import threading
+from collections.abc import Callable
+from multiprocessing.connection import Connection
+
+from flint import fmpz_poly
+
+from .graph import Graph
+from .hooks import BudgetExceeded, Hooks, Ticker
+
+ENV = "LEAGUEGRID_ENGINE_PROCESSES"
+PARALLEL_SCORE = 10**9  # order score from which a piece is worth a second process
+
+
+def available() -> bool:
+    """True when a second process may be used."""
+    if os.environ.get(ENV, "") == "1" or (os.cpu_count() or 1) < 2:
+        return False
+    return not mp.current_process().daemon
+
+
+def _compute(kind: str, g: Graph, order: list[int], param: object, ticker: Ticker):
+    from .frontier import count_at, count_many, count_polynomial
+
+    if kind == "poly":
+        return count_polynomial(g, order, ticker)
+    if kind == "at":
+        return count_at(g, order, param, ticker)
+    return count_many(g, order, param, ticker)
+
+
+def _work(conn: Connection, kind: str, adj: list[int], order: list[int], param, left) -> None:
+    """The child's side: compute one piece and send back ("ok", result) or the failure."""
+    from . import frontier
+
+    frontier.MEMORY_BYTES //= 2
+    try:
+        out = _compute(kind, Graph(adj), order, param, Ticker(Hooks(budget=left)))
+        if isinstance(out, fmpz_poly):
+            out = [int(c) for c in out.coeffs()]
+        conn.send(("ok", out))
+    except BudgetExceeded as exc:
+        conn.send(("budget", str(exc)))
+    except Exception as exc:  # reported to the parent, which raises it there
+        conn.send(("error", repr(exc)))
+    conn.close()
+
+
+class Background:
+    """One piece computed in a child process."""
+
+    def __init__(self, kind: str, g: Graph, order: list[int], param, left: float | None):
+        self.kind = kind
+        ctx = mp.get_context("fork" if threading.active_count() == 1 else "forkserver")
+        self.conn, child = ctx.Pipe(duplex=False)
+        self.proc = ctx.Process(
+            target=_work, args=(child, kind, g.adj, order, param, left), daemon=True
+        )
+        self.proc.start()
+        child.close()
+
+    def result(self, ticker: Ticker):
+        """Wait for the child's answer, checking cancel and budget meanwhile."""
+        while not self.conn.poll(0.05):
+            ticker.check()
+            if not self.proc.is_alive() and not self.conn.poll(0):
+                raise RuntimeError("the engine's second process stopped without an answer")
+        status, payload = self.conn.recv()
+        if status == "budget":
+            raise BudgetExceeded(payload)
+        if status != "ok":
+            raise RuntimeError(f"the engine's second process failed: {payload}")
+        return fmpz_poly(payload) if self.kind == "poly" else payload
+
+    def close(self) -> None:
+        """Stop the child if it is still running and release the pipe."""
+        if self.proc.is_alive():
+            self.proc.kill()
+        self.proc.join(timeout=5)
+        self.conn.close()
+
+
+def solve_pieces(
+    kind: str,
+    parts: list[Graph],
+    orders: list[list[int]],
+    scores: list[int],
+    param: object,
+    ticker: Ticker,
+    shares: list[float],
+    stop_early: Callable[[object], bool] = lambda _: False,
+) -> list:
+    """Each piece's result (kind "poly", "at" or "many"), the heaviest piece in a second
+    process when two or more pieces are heavy. `stop_early(result)` true after a piece
+    computed here (e.g. a zero count) skips the remaining local pieces (their results are
+    then None)."""
+    heavy = [i for i, s in enumerate(scores) if s >= PARALLEL_SCORE]
+    back = None
+    outside = -1
+    if len(heavy) >= 2 and available():
+        outside = max(heavy, key=lambda i: scores[i])
+        back = Background(kind, parts[outside], orders[outside], param, ticker.remaining())
+    results: list = [None] * len(parts)
+    try:
+        pos = 0.0
+        for i, part in enumerate(parts):
+            if i == outside:
+                continue
+            with ticker.window(pos, pos + shares[i]):
+                results[i] = _compute(kind, part, orders[i], param, ticker)
+            pos += shares[i]
+            if stop_early(results[i]):
+                return results
+        if back is not None:
+            results[outside] = back.result(ticker)
+    finally:
+        if back is not None:
+            back.close()
+    return results
