@@ -7,6 +7,7 @@ possible (proven); 4 a file could not be written; 5 stopped at the budget or can
 from __future__ import annotations
 
 import argparse
+import os
 import sys
 from collections.abc import Sequence
 from pathlib import Path
@@ -207,6 +208,9 @@ def main(argv: Sequence[str] | None = None) -> int:
     except KeyboardInterrupt:
         print("leaguegrid: cancelled", file=sys.stderr)
         return STOPPED
+    except BrokenPipeError:  # the reader of our output went away (e.g. `| head`): stop quietly
+        os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
+        return OK
 
 
 if __name__ == "__main__":

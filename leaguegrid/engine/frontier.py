@@ -7,6 +7,10 @@ is the sorted tuple of these sets (a multiset). Placing fixture v either joins a
 whose set does not hold v (one way per round) or opens a round not in the state
 (k - b ways, b = rounds in the state). This is the partition-of-the-frontier programme
 with partitions that no later step can tell apart merged into one state.
+
+The step functions (`advance_packed`, `advance_at`, `advance_many`) share their shape but not
+their weight arithmetic; they are written out one by one because they are the innermost loop
+of every count, where a shared helper would add a call per state.
 """
 
 from __future__ import annotations
