@@ -25,6 +25,7 @@ Number = int | engine.Estimate | None
 Progress = Callable[[float, str], None]
 RANGE_ABOVE_MIN = 4  # default table: fewest rounds up to fewest + 4
 POLYNOMIAL_SHARE = 0.5  # at most this share of the remaining budget goes to the polynomial
+ESTIMATE_SHARE = 0.2  # this share of the whole budget is kept for estimates of unfinished rows
 RETURN_HALF = ("return half: with K rounds, first legs in rounds 1..H and return fixtures in "
                "rounds H+1..K, H = K/2 rounded up")
 
@@ -75,6 +76,7 @@ class _Clock:
         self.deadline = None if budget is None else time.monotonic() + budget
         self.progress = progress
         self.cancel = cancel
+        self.estimate_seconds: float | None = None  # kept apart for estimates, all rows together
 
     def remaining(self) -> float | None:
         return None if self.deadline is None else max(0.0, self.deadline - time.monotonic())
@@ -146,7 +148,9 @@ def count_report(
     Rounds sheet's last round. Exact numbers are ints; what the budget cuts short is None, or an
     engine.Estimate when `estimate` is set (always labelled, never shown as exact).
     """
-    clock = _Clock(budget, progress, cancel)
+    exact_budget = None if budget is None or not estimate else budget * (1 - ESTIMATE_SHARE)
+    clock = _Clock(budget if exact_budget is None else exact_budget, progress, cancel)
+    clock.estimate_seconds = None if budget is None else budget * ESTIMATE_SHARE
     top = max(rounds) if rounds else graph.number_of_nodes() or 1
     base = build_model(league, graph, max(top, 1))
     ties = base.graph.number_of_nodes() != base.clashes.number_of_nodes()
@@ -215,8 +219,10 @@ def _fill_rows(report: CountReport, base: CountingModel, clock: _Clock, estimate
             row.groupings = _groupings_at(report, base, k, row, clock, start)
         row.exact = None not in (row.assignments, row.all_rounds_used, row.groupings)
         if not row.exact and estimate and row.assignments is None:
-            row.assignments = engine.estimate_assignments(
-                model.graph, k, pins=model.pins, exclusions=model.exclusions)
+            share = None if clock.estimate_seconds is None else clock.estimate_seconds / n
+            hooks = engine.Hooks(cancel=clock.cancel, budget=share)
+            row.assignments = clock.run(lambda m=model, k=k, h=hooks: engine.estimate_assignments(
+                m.graph, k, pins=m.pins, exclusions=m.exclusions, hooks=h))
 
 
 def _groupings_at(report: CountReport, base: CountingModel, k: int, row: CountRow,
