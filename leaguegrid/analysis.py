@@ -111,26 +111,6 @@ def default_rounds(min_rounds: int, limit: int | None) -> list[int]:
     return list(range(max(min_rounds, 1), top + 1))
 
 
-def groupings_from_polynomial(poly: fmpz_poly) -> list[int]:
-    """Falling-factorial coefficients a_j of P (P(k) = sum a_j k(k-1)...(k-j+1)), by Stirling
-    numbers of the second kind: k^n = sum_j S(n, j) (k)_j (textbook identity)."""
-    coeffs = [int(c) for c in poly.coeffs()]
-    n = len(coeffs) - 1
-    stirling = [[1]]  # stirling[m][j] = S(m, j)
-    for m in range(1, n + 1):
-        prev = stirling[-1]
-        row = [0] * (m + 1)
-        for j in range(1, m + 1):
-            left = prev[j - 1] if j - 1 < len(prev) else 0
-            row[j] = left + j * (prev[j] if j < len(prev) else 0)
-        stirling.append(row)
-    out = [0] * (n + 1)
-    for m, c in enumerate(coeffs):
-        for j in range(m + 1):
-            out[j] += c * stirling[m][j]
-    return out
-
-
 def count_report(
     league: League,
     graph: nx.Graph,
@@ -195,7 +175,7 @@ def _bounds(model: CountingModel) -> tuple[int, int]:
 def _fill_rows(report: CountReport, base: CountingModel, clock: _Clock, estimate: bool) -> None:
     """Each row's numbers: from the polynomial when nothing but clashes constrains the league,
     else from the counting model at K; labelled estimates where exact work ran out of budget."""
-    groups = groupings_from_polynomial(report.polynomial) if report.polynomial is not None else None
+    groups = engine.to_falling(report.polynomial) if report.polynomial is not None else None
     n = max(len(report.rows), 1)
     for i, row in enumerate(report.rows):
         k = row.rounds

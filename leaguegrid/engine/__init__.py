@@ -17,6 +17,7 @@ from .api import (
 )
 from .cost import Cost, estimate_cost
 from .estimate import Estimate
+from .falling import from_falling, to_falling
 from .hooks import BudgetExceeded, Cancelled, Hooks, NoAssignment
 
 __all__ = [
@@ -33,10 +34,12 @@ __all__ = [
     "count_table",
     "estimate_assignments",
     "estimate_cost",
+    "from_falling",
     "groupings",
     "min_rounds",
     "min_rounds_bounds",
     "min_rounds_proof",
     "sample_assignment",
     "sample_assignments",
+    "to_falling",
 ]
