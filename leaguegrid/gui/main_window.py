@@ -50,6 +50,11 @@ OPEN_FILTER = ("League workbooks and projects (*.xlsx *.csv *.leaguegrid);;"
                "Workbooks (*.xlsx);;CSV files (*.csv);;LeagueGrid projects (*.leaguegrid)")
 
 
+def _many(n: int, one: str, many: str | None = None) -> str:
+    """'1 venue', '3 venues'."""
+    return f"{n} {one if n == 1 else (many or one + 's')}"
+
+
 class MainWindow(QMainWindow):
     """One league at a time; every long computation runs in the Runner's worker thread."""
 
@@ -404,10 +409,11 @@ class MainWindow(QMainWindow):
         self._remember(path)
         league = result.league
         if league is not None:
-            summary = (f"{Path(path).name}: {len(league.fixtures)} fixtures, "
-                       f"{len(league.teams)} teams, "
-                       f"{len({f.venue for f in league.fixtures if f.venue})} venues, "
-                       f"{graph.number_of_edges() if graph is not None else 0} clashes.")
+            venues = len({f.venue for f in league.fixtures if f.venue})
+            clashes = graph.number_of_edges() if graph is not None else 0
+            parts = [_many(len(league.fixtures), "fixture"), _many(len(league.teams), "team"),
+                     _many(venues, "venue"), _many(clashes, "clash", "clashes")]
+            summary = f"{Path(path).name}: {', '.join(parts)}."
         else:
             summary = f"{Path(path).name} could not be used: see the problems below."
         if not result.ok and league is not None:
