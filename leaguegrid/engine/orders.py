@@ -30,17 +30,38 @@ def partitions_bound(width: int, k: int | None) -> int:
 def frontier_sizes(g: Graph, order: list[int]) -> list[int]:
     """Frontier size after each step: placed vertices that still have unplaced neighbours."""
     unplaced_deg = [a.bit_count() for a in g.adj]
+    ones = _mask_of(i for i, d in enumerate(unplaced_deg) if d == 1)
     size = 0
     out = []
     placed = 0
     for v in order:
-        leaving = sum(1 for u in bits(g.adj[v] & placed) if unplaced_deg[u] == 1)
-        for u in bits(g.adj[v]):
-            unplaced_deg[u] -= 1
+        leaving = (g.adj[v] & placed & ones).bit_count()
+        ones = _decrement(g.adj[v], unplaced_deg, ones)
         size += (1 if unplaced_deg[v] > 0 else 0) - leaving
         placed |= 1 << v
         out.append(size)
     return out
+
+
+def _mask_of(verts) -> int:
+    """The bitmask of the given vertices."""
+    m = 0
+    for v in verts:
+        m |= 1 << v
+    return m
+
+
+def _decrement(nbrs: int, unplaced_deg: list[int], ones: int) -> int:
+    """Lower the unplaced degree of each vertex in `nbrs` by one; the updated mask of
+    vertices with exactly one unplaced neighbour."""
+    for u in bits(nbrs):
+        d = unplaced_deg[u] - 1
+        unplaced_deg[u] = d
+        if d == 1:
+            ones |= 1 << u
+        elif d == 0:
+            ones &= ~(1 << u)
+    return ones
 
 
 def score(widths: list[int], k: int | None) -> int:
@@ -61,6 +82,7 @@ def greedy_order(
     n = g.n
     adj = g.adj
     unplaced_deg = [a.bit_count() for a in adj]
+    ones = _mask_of(i for i, d in enumerate(unplaced_deg) if d == 1)
     placed = 0
     boundary = 0  # unplaced vertices with a placed neighbour
     order: list[int] = []
@@ -71,10 +93,7 @@ def greedy_order(
             v = -1
             for c in bits(boundary):
                 nb_done = adj[c] & placed
-                leaving = 0
-                for u in bits(nb_done):
-                    if unplaced_deg[u] == 1:
-                        leaving += 1
+                leaving = (nb_done & ones).bit_count()
                 entering = 1 if unplaced_deg[c] > 0 else 0
                 key = (entering - leaving, -nb_done.bit_count(), rng.random() if rng else c)
                 if best_key is None or key < best_key:
@@ -92,8 +111,7 @@ def greedy_order(
         placed |= vb
         unplaced &= ~vb
         boundary = (boundary | adj[v]) & unplaced
-        for u in bits(adj[v]):
-            unplaced_deg[u] -= 1
+        ones = _decrement(adj[v], unplaced_deg, ones)
     return order
 
 

@@ -193,6 +193,9 @@ def test_hash_collisions_are_caught(monkeypatch) -> None:
     from leaguegrid.engine import vectorized
 
     monkeypatch.setattr(vectorized, "_hash", lambda rows: np.zeros(rows.shape[0], np.uint64))
+    calls = []
+    lexsort = np.lexsort
+    monkeypatch.setattr(np, "lexsort", lambda keys: calls.append(1) or lexsort(keys))
     from leaguegrid.engine import frontier
 
     monkeypatch.setattr(frontier, "VECTOR_THRESHOLD", 1)
@@ -201,3 +204,19 @@ def test_hash_collisions_are_caught(monkeypatch) -> None:
     p = chromatic_polynomial(G)  # the packed-polynomial path does not use arrays
     assert count_many(g, list(range(10)), [3, 4], Ticker()) == [p(3), p(4)]
     assert p(3) == 120
+    assert calls  # the collisions were seen and the exact sort used
+
+
+def test_truncated_hash_groups_are_checked(monkeypatch) -> None:
+    # Hashes that differ only in their low bits fall in one group of the packed sort;
+    # the row check must send the merge to the full hash, which keeps them apart.
+    import numpy as np
+
+    from leaguegrid.engine import vectorized
+
+    monkeypatch.setattr(vectorized, "_hash", lambda rows: rows[:, -1].copy())
+    rows = np.array([[0, 1], [0, 2], [0, 1], [0, 3]], np.uint64)
+    res = np.array([[1, 2, 3, 4]], np.int64)
+    merged, weights = vectorized._merge(rows, res, np.array([7], np.int64))
+    got = sorted(zip(merged[:, 1].tolist(), weights[0].tolist(), strict=True))
+    assert got == [(1, 4), (2, 2), (3, 4)]
