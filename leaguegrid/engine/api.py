@@ -90,6 +90,20 @@ def _count_on_rounds(
     return _count(g, len(rounds), pins, {v: rs for v, rs in excl.items() if rs}, ticker)
 
 
+def _counted(
+    count, G: nx.Graph, k: int, pins: Pins | None, exclusions: Exclusions | None,
+    hooks: Hooks | None,
+) -> int:
+    """Check k, prepare the graph, run one exact count with progress from 0 to 1."""
+    _check_k(k)
+    ticker = Ticker(hooks)
+    ticker.report(0.0, "starting")
+    g, _, ip, ie = _prepare(G, pins, exclusions)
+    out = count(g, k, ip, ie, ticker)
+    ticker.report(1.0, "done")
+    return out
+
+
 def chromatic_polynomial(G: nx.Graph, hooks: Hooks | None = None) -> fmpz_poly:
     """P(G, x): the number of clash-free assignments to x rounds, as a polynomial."""
     ticker = Ticker(hooks)
@@ -109,13 +123,7 @@ def count_assignments(
 ) -> int:
     """Exact number of assignments to rounds 1..k with no clash in a round, pins and
     exclusions respected (rounds may stay empty)."""
-    _check_k(k)
-    ticker = Ticker(hooks)
-    ticker.report(0.0, "starting")
-    g, _, ip, ie = _prepare(G, pins, exclusions)
-    out = _count(g, k, ip, ie, ticker)
-    ticker.report(1.0, "done")
-    return out
+    return _counted(_count, G, k, pins, exclusions, hooks)
 
 
 def count_all_rounds_used(
@@ -126,13 +134,7 @@ def count_all_rounds_used(
     hooks: Hooks | None = None,
 ) -> int:
     """Exact number of assignments to rounds 1..k that use every round."""
-    _check_k(k)
-    ticker = Ticker(hooks)
-    ticker.report(0.0, "starting")
-    g, _, ip, ie = _prepare(G, pins, exclusions)
-    out = _all_rounds_used(g, k, ip, ie, ticker)
-    ticker.report(1.0, "done")
-    return out
+    return _counted(_all_rounds_used, G, k, pins, exclusions, hooks)
 
 
 def _all_rounds_used(

@@ -161,8 +161,9 @@ def _warn_empty(table: Table, row: Row, first: Target, second: Target, resolver:
     )
 
 
-def read_ties(table: Table, resolver: Resolver) -> list[Tie]:
-    """Ties rows: two fixture labels that must share a round."""
+def _fixture_pairs(table: Table, resolver: Resolver) -> list[tuple]:
+    """Rows of a First/Second sheet naming two fixtures: (row, first label, second label);
+    rows with problems are reported and left out."""
     report = resolver.ctx.report
     if not (require(table, "first", "First", report) & require(table, "second", "Second", report)):
         return []
@@ -170,25 +171,17 @@ def read_ties(table: Table, resolver: Resolver) -> list[Tie]:
     for row in table.rows:
         targets = _two_targets(table, row, resolver, ("fixture",))
         if targets:
-            out.append(Tie(targets[0].name, targets[1].name, row.number))
+            out.append((row, targets[0].name, targets[1].name))
     return out
+
+
+def read_ties(table: Table, resolver: Resolver) -> list[Tie]:
+    """Ties rows: two fixture labels that must share a round."""
+    pairs = _fixture_pairs(table, resolver)
+    return [Tie(first, second, row.number) for row, first, second in pairs]
 
 
 def read_splits(table: Table, resolver: Resolver) -> list[Split]:
     """Splits rows: two fixture labels that must not share a round, with a reason."""
-    report = resolver.ctx.report
-    if not (require(table, "first", "First", report) & require(table, "second", "Second", report)):
-        return []
-    out = []
-    for row in table.rows:
-        targets = _two_targets(table, row, resolver, ("fixture",))
-        if targets:
-            out.append(
-                Split(
-                    targets[0].name,
-                    targets[1].name,
-                    table.text(row, "reason") or "split",
-                    row.number,
-                )
-            )
-    return out
+    return [Split(first, second, table.text(row, "reason") or "split", row.number)
+            for row, first, second in _fixture_pairs(table, resolver)]
