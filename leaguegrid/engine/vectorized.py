@@ -17,6 +17,7 @@ from collections.abc import Callable
 
 import numpy as np
 
+from .allocator import keep_freed_memory
 from .graph import Graph, bits
 
 CHUNK_ROWS = 2_000_000  # successor rows built at a time (bounds the memory of one step)
@@ -325,6 +326,7 @@ def finish(
 ) -> list[int] | None:
     """Continue a frontier.py programme (integer weights for each k in ks) from step
     `start` with arrays; the counts for each k, or None when no state survives."""
+    keep_freed_memory()
     kmax = max(ks)
     primes = primes_for(max(count_bound(g, order, kmax), 1))
     steps, slot = slot_steps(g, order, start)

@@ -1,0 +1,33 @@
+"""Keep freed memory for reuse while the array programme runs (glibc only).
+
+The array programme (vectorized.py) allocates and frees tables of tens to hundreds of MiB
+at every step. By default glibc hands each large block back to the system when it is
+freed, and the next step faults the same pages in again: on the 10-team round-robin count
+at 9 rounds that was a third of the run (8.2 s, of which 2.9 s in the kernel). Raising the
+mmap threshold to its largest allowed value (32 MiB) and keeping 256 MiB of padding at the
+top of the heap lets the next step reuse them (5.7 s, peak resident memory 0.86 GiB
+instead of 0.83 GiB). On other C libraries (macOS, Windows, musl) nothing changes.
+"""
+
+from __future__ import annotations
+
+import ctypes
+import sys
+
+M_TOP_PAD = -2  # mallopt parameter numbers from glibc's malloc.h
+M_MMAP_THRESHOLD = -3
+_done = False
+
+
+def keep_freed_memory() -> None:
+    """Tune glibc's allocator once per process; a no-op elsewhere or when it fails."""
+    global _done
+    if _done or not sys.platform.startswith("linux"):
+        return
+    _done = True
+    try:
+        libc = ctypes.CDLL("libc.so.6")
+        libc.mallopt(M_MMAP_THRESHOLD, 32 << 20)
+        libc.mallopt(M_TOP_PAD, 256 << 20)
+    except (OSError, AttributeError):
+        return

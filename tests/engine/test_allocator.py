@@ -1,0 +1,51 @@
+"""The allocator tuning asks glibc for the two settings once, and nothing elsewhere."""
+
+from __future__ import annotations
+
+import sys
+
+import pytest
+
+from leaguegrid.engine import allocator
+
+
+class FakeLibc:
+    def __init__(self) -> None:
+        self.calls: list[tuple[int, int]] = []
+
+    def mallopt(self, param: int, value: int) -> int:
+        self.calls.append((param, value))
+        return 1
+
+
+@pytest.fixture
+def fake(monkeypatch):
+    libc = FakeLibc()
+    monkeypatch.setattr(allocator, "_done", False)
+    monkeypatch.setattr(allocator.ctypes, "CDLL", lambda name: libc)
+    return libc
+
+
+def test_glibc_gets_threshold_and_top_pad_once(fake, monkeypatch):
+    monkeypatch.setattr(sys, "platform", "linux")
+    allocator.keep_freed_memory()
+    allocator.keep_freed_memory()
+    # glibc malloc.h: M_MMAP_THRESHOLD = -3 (32 MiB is its largest value), M_TOP_PAD = -2
+    assert fake.calls == [(-3, 32 * 2**20), (-2, 256 * 2**20)]
+
+
+def test_other_platforms_are_left_alone(fake, monkeypatch):
+    monkeypatch.setattr(sys, "platform", "win32")
+    allocator.keep_freed_memory()
+    assert fake.calls == []
+
+
+def test_missing_c_library_is_not_an_error(monkeypatch):
+    def missing(name: str):
+        raise OSError(f"{name}: cannot open shared object file")
+
+    monkeypatch.setattr(allocator, "_done", False)
+    monkeypatch.setattr(sys, "platform", "linux")
+    monkeypatch.setattr(allocator.ctypes, "CDLL", missing)
+    allocator.keep_freed_memory()
+    assert allocator._done
