@@ -100,19 +100,12 @@ def run_one(G: nx.Graph, mode: str, k: int | None) -> dict:
 
     t = time.perf_counter()
     c = time.process_time()
-    if mode == "poly":
-        p = engine.chromatic_polynomial(G)
-        coeffs = [int(c) for c in reversed(p.coeffs())]
-        text = " ".join(map(str, coeffs))
-        value = None
-    elif mode == "fixed":
-        value = engine.count_assignments(G, k)
-        text = str(value)
+    try:
+        value, text = _compute(engine, G, mode, k)
+    except engine.BudgetExceeded as exc:
+        value, text, stopped = None, "", str(exc)
     else:
-        low = engine.min_rounds(G)
-        table = engine.count_table(G, range(low, low + 5))
-        text = repr((low, sorted(table.items())))
-        value = None
+        stopped = None
     seconds = time.perf_counter() - t
     cpu = time.process_time() - c
     peak = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024  # KiB -> MiB on Linux
@@ -122,7 +115,21 @@ def run_one(G: nx.Graph, mode: str, k: int | None) -> dict:
         "peak_mib": peak,
         "digest": digest(text),
         "value": value,
+        "stopped": stopped,
     }
+
+
+def _compute(engine: ModuleType, G: nx.Graph, mode: str, k: int | None) -> tuple[int | None, str]:
+    """The mode's result (a count or None) and its text for the digest."""
+    if mode == "poly":
+        p = engine.chromatic_polynomial(G)
+        return None, " ".join(str(int(c)) for c in reversed(p.coeffs()))
+    if mode == "fixed":
+        value = engine.count_assignments(G, k)
+        return value, str(value)
+    low = engine.min_rounds(G)
+    table = engine.count_table(G, range(low, low + 5))
+    return None, repr((low, sorted(table.items())))
 
 
 def child(args: argparse.Namespace) -> None:
@@ -276,6 +283,11 @@ def main(argv: list[str] | None = None) -> int:
             line += f"{'>' + str(int(args.limit)):>10}{'-':>9}{'-':>10}  {'not finished':<14}"
         elif "error" in res:
             line += f"  error: {res['error']}"
+            secs = None
+        elif res.get("stopped"):
+            line += f"{'-':>10}{res['cpu']:>9.3f}{res['peak_mib']:>10.0f}"
+            line += f"  stopped: {res['stopped']}"
+            secs = None
         else:
             dg = res["digest"]
             if expected is not None:

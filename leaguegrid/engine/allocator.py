@@ -1,4 +1,4 @@
-"""Keep freed memory for reuse while the array programme runs (glibc only).
+"""The process's memory: keep freed memory for reuse (glibc only), and read what is resident.
 
 The array programme (vectorized.py) allocates and frees tables of tens to hundreds of MiB
 at every step. By default glibc hands each large block back to the system when it is
@@ -12,11 +12,22 @@ instead of 0.83 GiB). On other C libraries (macOS, Windows, musl) nothing change
 from __future__ import annotations
 
 import ctypes
+import mmap
 import sys
 
 M_TOP_PAD = -2  # mallopt parameter numbers from glibc's malloc.h
 M_MMAP_THRESHOLD = -3
+PAGE = mmap.PAGESIZE
 _done = False
+
+
+def resident_bytes() -> int | None:
+    """The process's resident memory now (Linux), or None where it cannot be read cheaply."""
+    try:
+        with open("/proc/self/statm", "rb") as f:
+            return int(f.read().split()[1]) * PAGE
+    except (OSError, ValueError, IndexError):
+        return None
 
 
 def keep_freed_memory() -> None:

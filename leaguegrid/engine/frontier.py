@@ -20,8 +20,10 @@ from collections.abc import Callable
 
 from flint import fmpz_poly
 
+from .allocator import resident_bytes
 from .graph import Graph
 from .hooks import BudgetExceeded, Ticker
+from .orders import frontier_sizes
 
 State = tuple[int, ...]
 CHECK_EVERY = 2048
@@ -256,24 +258,39 @@ def advance_many(layer: dict, vb: int, nb: int, ks: tuple[int, ...], check: Chec
 ADVANCE = {"packed": advance_packed, "at": advance_at, "many": advance_many}
 
 
-MEMORY_BYTES = 480 * 2**20  # bound on one state table; two are alive at a time
+MEMORY_BYTES = 400 * 2**20  # bound on one state table; two are alive at a time
+# The array path (vectorized.py) holds the previous table, the new table's chunks before
+# their final merge (bounded at 3/4 of MEMORY_BYTES), one bucket's merge copies, and one
+# chunk of successors (1/5) with its sort and merge copies. Where the process's resident
+# memory can be read (Linux), every check also stops past RESIDENT_LIMIT, so that the one
+# step in progress stays under 1 GiB. Measured peaks: 10-team round-robin at 9 rounds
+# 646 MiB; stopped at the bound: the 90-fixture demo season at 18 rounds 762 MiB (all
+# rounds used 807 MiB), clubday-60's counts table 788 MiB.
+VECTOR_TABLE_SHARE = 3 / 4
+VECTOR_CHUNK_SHARE = 1 / 5
+RESIDENT_LIMIT = 760 * 2**20
 
 
-def _state_bytes(mode: str, param: object, step: int) -> int:
-    """Rough bytes per stored state (key, dict slot, weight) at a given step."""
+def _state_bytes(mode: str, param: object, step: int, width: int) -> int:
+    """Rough bytes per stored state at a given step, `width` fixtures on the frontier: the
+    dict slot, the tuple with a pointer per round (the round's int is mostly shared with
+    other states), and the weight."""
+    size = 300 + 8 * width
     if mode == "packed":
-        return 320 + (step + 1) * int(param) // 8  # packed weight grows by B bits a step
+        return size + (step + 1) * int(param) // 8  # packed weight grows by B bits a step
     if mode == "many":
-        return 360 + 40 * len(param)
-    return 350
+        return size + 40 * len(param)
+    return size + 40
 
 
 def _guard(ticker: Ticker, limit: int, step: int, n: int) -> Check:
-    """The check called while a table grows: cancel, budget, and the memory bound."""
+    """The check called while a table grows: cancel, budget, and the memory bound (the
+    table's size, and where it can be read, the process's resident memory)."""
 
     def check(size: int) -> None:
         ticker.check()
-        if size > limit:
+        resident = resident_bytes()
+        if size > limit or (resident is not None and resident > RESIDENT_LIMIT):
             raise BudgetExceeded(
                 f"state table passed the memory bound ({size} states at step {step + 1} of {n})"
             )
@@ -291,6 +308,7 @@ def run(g: Graph, order: list[int], mode: str, param: object, one: object, ticke
     (vectorized.py) when at most 64 fixtures are on the boundary at a time."""
     advance = ADVANCE[mode]
     steps = step_masks(g, order)
+    widths = frontier_sizes(g, order)
     n = len(steps)
     layer: dict = {(): one}
     vector = mode != "packed"
@@ -302,7 +320,7 @@ def run(g: Graph, order: list[int], mode: str, param: object, one: object, ticke
                 ticker.report(1.0, "counting")
                 return done
             vector = False
-        check = _guard(ticker, MEMORY_BYTES // _state_bytes(mode, param, i), i, n)
+        check = _guard(ticker, MEMORY_BYTES // _state_bytes(mode, param, i, widths[i]), i, n)
         layer = advance(layer, vb, nb, param, check)
         check(len(layer))
         if not layer:
@@ -327,13 +345,14 @@ def _vector_finish(g, order, start, layer, mode, param, ticker):
     lines = len(ks) * len(vectorized.primes_for(max(vectorized.count_bound(g, order, max(ks)), 1)))
 
     def check_for(step: int) -> Check:
-        limit = MEMORY_BYTES // vectorized.bytes_per_row(max(ks), lines)
+        limit = int(MEMORY_BYTES * VECTOR_TABLE_SHARE) // vectorized.bytes_per_row(max(ks), lines)
         return _guard(ticker, limit, step, n)
 
     def progress(step: int) -> None:
         ticker.report(step / max(n, 1), "counting")
 
-    got = vectorized.finish(g, order, start, layer, ks, check_for, progress)
+    chunk = int(MEMORY_BYTES * VECTOR_CHUNK_SHARE)
+    got = vectorized.finish(g, order, start, layer, ks, check_for, progress, chunk)
     if got is None:
         return None
     return got[0] if mode == "at" else got

@@ -49,6 +49,7 @@ def _work(conn: Connection, kind: str, adj: list[int], order: list[int], param, 
     from . import frontier
 
     frontier.MEMORY_BYTES //= 2
+    frontier.RESIDENT_LIMIT //= 2
     try:
         out = _compute(kind, Graph(adj), order, param, Ticker(Hooks(budget=left)))
         if isinstance(out, fmpz_poly):

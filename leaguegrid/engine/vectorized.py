@@ -20,7 +20,10 @@ import numpy as np
 from .allocator import keep_freed_memory
 from .graph import Graph, bits
 
-CHUNK_ROWS = 2_000_000  # successor rows built at a time (bounds the memory of one step)
+CHUNK_BYTES = 80 * 2**20  # successor rows built at a time, in bytes (bounds one step's memory)
+MIN_CHUNK_ROWS = 10_000  # a chunk is never smaller than this (few large numpy calls)
+NBUCKET_BITS = 3  # a step's chunk tables are merged in 2^3 buckets of equal rows
+CHECK_ROWS = 1 << 20  # rows compared at a time when a hash grouping is checked
 _M1 = np.uint64(0x9E3779B97F4A7C15)
 _M2 = np.uint64(0xBF58476D1CE4E5B9)
 _S29 = np.uint64(29)
@@ -200,6 +203,16 @@ def _sorted_exactly(
     return order, start
 
 
+def _grouped_rows_equal(rows: np.ndarray, reps: np.ndarray, gid: np.ndarray) -> bool:
+    """True when every row equals its group's first row (compared a block at a time, so that
+    no full copy of the table is made)."""
+    for lo in range(0, rows.shape[0], CHECK_ROWS):
+        hi = lo + CHECK_ROWS
+        if not np.array_equal(rows[lo:hi], rows[reps[gid[lo:hi]]]):
+            return False
+    return True
+
+
 def _merge(rows: np.ndarray, res: np.ndarray, mods: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     """Merge equal rows, adding their residues (then reducing modulo `mods` per line).
 
@@ -219,7 +232,7 @@ def _merge(rows: np.ndarray, res: np.ndarray, mods: np.ndarray) -> tuple[np.ndar
         reps = order[start]
         gid = np.empty(n, np.int64)
         gid[order] = gid_sorted
-        if attempt == 2 or np.array_equal(rows, rows[reps[gid]]):
+        if attempt == 2 or _grouped_rows_equal(rows, reps, gid):
             break
     groups = len(reps)
     if n < 2**22:
@@ -244,8 +257,10 @@ def advance(
     ks: tuple[int, ...],
     mods: np.ndarray,
     check: Callable[[int], None],
+    chunk_bytes: int = CHUNK_BYTES,
 ) -> tuple[np.ndarray, np.ndarray]:
-    """One step of the programme with one residue line per (k, prime)."""
+    """One step of the programme with one residue line per (k, prime); successors are built
+    and merged `chunk_bytes` at a time."""
     kmax = max(ks)
     nprimes = len(mods) // len(ks)
     n, width = rows.shape
@@ -256,6 +271,7 @@ def advance(
     base = rows & ~vbu if vb else rows
     joinable = nz & ~((rows & vbu) != 0) if vb else nz
     ks_col = np.repeat(np.array(ks, np.int64), nprimes)[:, None]
+    chunk_rows = max(chunk_bytes // (8 * (width + 1 + len(mods))), MIN_CHUNK_ROWS)
     pieces_rows: list[np.ndarray] = []
     pieces_res: list[np.ndarray] = []
     pending = 0
@@ -284,7 +300,17 @@ def advance(
         merged_res.append(w)
         check(sum(len(x) for x in merged_rows))
 
-    def add(sel: np.ndarray, column: int | None, weights: np.ndarray) -> None:
+    def add(sel: np.ndarray, column: int | None) -> None:
+        """Queue the successors of the states `sel`: v opens a round (column None) or joins
+        the round in `column`; weights are built a chunk at a time."""
+        for lo in range(0, len(sel), chunk_rows):
+            part = sel[lo : lo + chunk_rows]
+            weights = res[:, part]
+            if column is None:
+                weights = weights * np.maximum(ks_col - b[part][None, :], 0) % mods[:, None]
+            add_chunk(part, column, weights)
+
+    def add_chunk(sel: np.ndarray, column: int | None, weights: np.ndarray) -> None:
         nonlocal pending
         cand = np.empty((len(sel), width + 1), np.uint64)
         cand[:, 1:] = base[sel]
@@ -294,25 +320,71 @@ def advance(
         pieces_rows.append(cand)
         pieces_res.append(weights)
         pending += len(sel)
-        if pending >= CHUNK_ROWS:
+        if pending >= chunk_rows:
             flush()
+        else:
+            check(sum(len(x) for x in merged_rows))
 
     opens = np.nonzero(b < kmax)[0]
     if len(opens):
-        factor = np.maximum(ks_col - b[opens][None, :], 0)
-        add(opens, None, res[:, opens] * factor % mods[:, None])
+        add(opens, None)
     for j in range(width):
         sel = np.nonzero(joinable[:, j])[0]
         if len(sel):
-            add(sel, j, res[:, sel])
+            add(sel, j)
     flush()
     if not merged_rows:
         return np.zeros((0, 0), np.uint64), np.zeros((len(mods), 0), np.int64)
     if len(merged_rows) == 1:
         return merged_rows[0], merged_res[0]
-    wmax = max(r.shape[1] for r in merged_rows)
-    padded = [np.pad(r, ((0, 0), (wmax - r.shape[1], 0))) for r in merged_rows]
-    return _merge(np.concatenate(padded), np.concatenate(merged_res, axis=1), mods)
+    return _merge_tables(merged_rows, merged_res, mods)
+
+
+def _bucket_of(rows: np.ndarray) -> np.ndarray:
+    """A bucket 0..NBUCKETS-1 for each row, equal for equal rows whatever their zero padding
+    (a sum of mixed entries, and a mixed zero is zero)."""
+    h = np.zeros(rows.shape[0], np.uint64)
+    for c in range(rows.shape[1]):
+        x = rows[:, c] * _M1
+        x ^= x >> _S29
+        h += x
+    h *= _M2
+    return (h >> np.uint64(64 - NBUCKET_BITS)).astype(np.intp)
+
+
+def _merge_tables(
+    tables: list[np.ndarray], weights: list[np.ndarray], mods: np.ndarray
+) -> tuple[np.ndarray, np.ndarray]:
+    """Merge the chunks' tables (emptying both lists): each table in turn is dealt into
+    buckets by _bucket_of and freed, then each bucket is merged on its own, so that no
+    moment holds more than the tables and one bucket's working copies."""
+    width = max(r.shape[1] for r in tables)
+    nb = 1 << NBUCKET_BITS
+    bucket_rows: list[list[np.ndarray]] = [[] for _ in range(nb)]
+    bucket_res: list[list[np.ndarray]] = [[] for _ in range(nb)]
+    while tables:
+        r = tables.pop()
+        w = weights.pop()
+        bucket = _bucket_of(r)
+        order = np.argsort(bucket, kind="stable")
+        ends = np.cumsum(np.bincount(bucket, minlength=nb))
+        for i, idx in enumerate(np.split(order, ends[:-1])):
+            if len(idx):
+                bucket_rows[i].append(np.pad(r[idx], ((0, 0), (width - r.shape[1], 0))))
+                bucket_res[i].append(w[:, idx])
+        del r, w, bucket, order
+    out_rows = []
+    out_res = []
+    for i in range(nb):
+        if bucket_rows[i]:
+            rows = np.concatenate(bucket_rows[i])
+            res = np.concatenate(bucket_res[i], axis=1)
+            bucket_rows[i] = bucket_res[i] = []
+            r, w = _merge(rows, res, mods)
+            del rows, res
+            out_rows.append(r)
+            out_res.append(w)
+    return np.concatenate(out_rows), np.concatenate(out_res, axis=1)
 
 
 def finish(
@@ -323,6 +395,7 @@ def finish(
     ks: tuple[int, ...],
     check_for: Callable[[int], Callable[[int], None]],
     progress: Callable[[int], None],
+    chunk_bytes: int = CHUNK_BYTES,
 ) -> list[int] | None:
     """Continue a frontier.py programme (integer weights for each k in ks) from step
     `start` with arrays; the counts for each k, or None when no state survives."""
@@ -334,7 +407,7 @@ def finish(
     mods = np.array([p for _ in ks for p in primes], np.int64)
     for i, (vb, nb) in enumerate(steps):
         progress(start + i)
-        rows, res = advance(rows, res, vb, nb, ks, mods, check_for(start + i))
+        rows, res = advance(rows, res, vb, nb, ks, mods, check_for(start + i), chunk_bytes)
         if rows.shape[0] == 0:
             return None
     if rows.shape[1] and rows.any():

@@ -49,3 +49,23 @@ def test_missing_c_library_is_not_an_error(monkeypatch):
     monkeypatch.setattr(allocator.ctypes, "CDLL", missing)
     allocator.keep_freed_memory()
     assert allocator._done
+
+
+@pytest.mark.skipif(not sys.platform.startswith("linux"), reason="reads /proc/self/statm")
+def test_resident_bytes_reads_this_process():
+    assert allocator.resident_bytes() > 10 * 2**20  # the interpreter with numpy and flint
+
+
+@pytest.mark.skipif(not sys.platform.startswith("linux"), reason="reads /proc/self/statm")
+def test_resident_memory_bound_stops_exact_work(monkeypatch):
+    from collections import OrderedDict
+
+    import networkx as nx
+
+    from leaguegrid.engine import BudgetExceeded, count_assignments, frontier, solve
+
+    monkeypatch.setattr(frontier, "RESIDENT_LIMIT", 1)
+    monkeypatch.setattr(solve, "_CACHE", OrderedDict())  # no count remembered from elsewhere
+    rook = nx.cartesian_product(nx.complete_graph(4), nx.complete_graph(4))
+    with pytest.raises(BudgetExceeded, match="memory bound"):
+        count_assignments(rook, 4)

@@ -9,7 +9,7 @@ import random
 import networkx as nx
 import sympy  # networkx.chromatic_polynomial returns sympy expressions
 from flint import fmpz_poly
-from hypothesis import HealthCheck, given, settings
+from hypothesis import HealthCheck, assume, given, settings
 from hypothesis import strategies as st
 
 from leaguegrid.engine import (
@@ -90,7 +90,9 @@ def test_every_vertex_order_agrees(G: nx.Graph, rnd: random.Random) -> None:
 @settings(max_examples=15, deadline=None)
 @given(graphs(max_n=7))
 def test_agrees_with_networkx(G: nx.Graph) -> None:
-    # Reference: networkx.chromatic_polynomial (sympy), at most 7 vertices here.
+    # Reference: networkx.chromatic_polynomial (sympy), at most 7 vertices and 15 edges
+    # here (its deletion-contraction takes about a minute on K7's 21 edges).
+    assume(G.number_of_edges() <= 15)
     x = sympy.Symbol("x")
     ref = sympy.Poly(nx.chromatic_polynomial(G), x) if G.number_of_nodes() else None
     p = chromatic_polynomial(G)
@@ -154,11 +156,11 @@ def test_clique_separator_split() -> None:
     assert chromatic_polynomial(G) == pa * pb // tri
 
 
-@SETTINGS
-@given(graphs(max_n=12), st.integers(0, 6))
-def test_array_programme_agrees_with_dict_programme(G: nx.Graph, k: int) -> None:
-    # The numpy path (vectorized.py), forced from the first step, gives the same counts.
-    from leaguegrid.engine import frontier
+def _array_path_agrees(G: nx.Graph, k: int, chunk_rows: int | None) -> None:
+    """The numpy path (vectorized.py), forced from the first step, gives the dict
+    programme's counts; with `chunk_rows`, successors are built that many rows at a time,
+    merged per chunk and then across chunks in buckets (vectorized._merge_tables)."""
+    from leaguegrid.engine import frontier, vectorized
     from leaguegrid.engine.orders import greedy_order
 
     g, _ = from_networkx(G)
@@ -166,13 +168,27 @@ def test_array_programme_agrees_with_dict_programme(G: nx.Graph, k: int) -> None
     ticker = Ticker()
     ks = list(range(0, 7))
     plain = [count_at(g, order, j, ticker) for j in ks]
-    saved = frontier.VECTOR_THRESHOLD
+    saved = frontier.VECTOR_THRESHOLD, frontier.VECTOR_CHUNK_SHARE, vectorized.MIN_CHUNK_ROWS
     frontier.VECTOR_THRESHOLD = 1
+    if chunk_rows is not None:
+        frontier.VECTOR_CHUNK_SHARE, vectorized.MIN_CHUNK_ROWS = 0, chunk_rows
     try:
         assert count_at(g, order, k, ticker) == plain[k]
         assert count_many(g, order, ks, ticker) == plain
     finally:
-        frontier.VECTOR_THRESHOLD = saved
+        frontier.VECTOR_THRESHOLD, frontier.VECTOR_CHUNK_SHARE, vectorized.MIN_CHUNK_ROWS = saved
+
+
+@SETTINGS
+@given(graphs(max_n=12), st.integers(0, 6))
+def test_array_programme_agrees_with_dict_programme(G: nx.Graph, k: int) -> None:
+    _array_path_agrees(G, k, None)
+
+
+@SETTINGS
+@given(graphs(max_n=12), st.integers(0, 6))
+def test_chunked_steps_agree_with_dict_programme(G: nx.Graph, k: int) -> None:
+    _array_path_agrees(G, k, 3)
 
 
 def test_array_programme_on_published_counts(monkeypatch) -> None:
@@ -220,3 +236,21 @@ def test_truncated_hash_groups_are_checked(monkeypatch) -> None:
     merged, weights = vectorized._merge(rows, res, np.array([7], np.int64))
     got = sorted(zip(merged[:, 1].tolist(), weights[0].tolist(), strict=True))
     assert got == [(1, 4), (2, 2), (3, 4)]
+
+
+def test_merge_tables_joins_rows_that_differ_only_in_padding() -> None:
+    import numpy as np
+
+    from leaguegrid.engine import vectorized
+
+    tables = [
+        np.array([[0, 5], [3, 6]], np.uint64),
+        np.array([[5], [7]], np.uint64),  # [5] is [0, 5] without its zero padding
+        np.array([[3, 6], [0, 7]], np.uint64),
+    ]
+    weights = [np.array([[1, 2]], np.int64), np.array([[4, 8]], np.int64),
+               np.array([[16, 32]], np.int64)]
+    rows, res = vectorized._merge_tables(tables, weights, np.array([1000], np.int64))
+    got = sorted((tuple(r), int(w)) for r, w in zip(rows.tolist(), res[0], strict=True))
+    assert got == [((0, 5), 5), ((0, 7), 40), ((3, 6), 18)]
+    assert tables == [] and weights == []  # the inputs are handed over and freed
