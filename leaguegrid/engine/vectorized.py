@@ -213,17 +213,24 @@ def _grouped_rows_equal(rows: np.ndarray, reps: np.ndarray, gid: np.ndarray) -> 
     return True
 
 
-def _merge(rows: np.ndarray, res: np.ndarray, mods: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+def _merge(
+    rows: np.ndarray,
+    res: np.ndarray,
+    mods: np.ndarray,
+    check: Callable[[int], None] = lambda _: None,
+) -> tuple[np.ndarray, np.ndarray]:
     """Merge equal rows, adding their residues (then reducing modulo `mods` per line).
 
     Rows are grouped by the high bits of a 64-bit hash, then by the full hash, then by a
     lexicographic sort, each tried only when the previous put two different rows together
-    (every row is compared with its group's first, so a grouping is never trusted)."""
+    (every row is compared with its group's first, so a grouping is never trusted).
+    `check` is called between the phases (cancel)."""
     n = rows.shape[0]
     if n == 0:
         return rows, res
     h = _hash(rows)
     for attempt in range(3):
+        check(0)
         if attempt == 0:
             order, start = _sorted_by_hash(h)
         else:
@@ -235,6 +242,7 @@ def _merge(rows: np.ndarray, res: np.ndarray, mods: np.ndarray) -> tuple[np.ndar
         if attempt == 2 or _grouped_rows_equal(rows, reps, gid):
             break
     groups = len(reps)
+    check(0)
     if n < 2**22:
         # Residues < 2^31 and fewer than 2^22 rows in a group: float64 sums stay exact.
         out = np.empty((res.shape[0], groups), np.int64)
@@ -287,6 +295,7 @@ def advance(
         pieces_rows.clear()
         pieces_res.clear()
         pending = 0
+        check(0)
         cand.sort(axis=1)  # ascending: empty (zero) slots first
         keep_cols = int(cand.any(axis=0).sum())
         cand = cand[:, cand.shape[1] - keep_cols :]
@@ -295,7 +304,8 @@ def advance(
             if dead.any():
                 cand = cand[~dead]
                 cres = cres[:, ~dead]
-        r, w = _merge(cand, cres, mods)
+        check(0)
+        r, w = _merge(cand, cres, mods, check)
         merged_rows.append(r)
         merged_res.append(w)
         check(sum(len(x) for x in merged_rows))
@@ -337,7 +347,7 @@ def advance(
         return np.zeros((0, 0), np.uint64), np.zeros((len(mods), 0), np.int64)
     if len(merged_rows) == 1:
         return merged_rows[0], merged_res[0]
-    return _merge_tables(merged_rows, merged_res, mods)
+    return _merge_tables(merged_rows, merged_res, mods, check)
 
 
 def _bucket_of(rows: np.ndarray) -> np.ndarray:
@@ -353,7 +363,10 @@ def _bucket_of(rows: np.ndarray) -> np.ndarray:
 
 
 def _merge_tables(
-    tables: list[np.ndarray], weights: list[np.ndarray], mods: np.ndarray
+    tables: list[np.ndarray],
+    weights: list[np.ndarray],
+    mods: np.ndarray,
+    check: Callable[[int], None] = lambda _: None,
 ) -> tuple[np.ndarray, np.ndarray]:
     """Merge the chunks' tables (emptying both lists): each table in turn is dealt into
     buckets by _bucket_of and freed, then each bucket is merged on its own, so that no
@@ -363,6 +376,7 @@ def _merge_tables(
     bucket_rows: list[list[np.ndarray]] = [[] for _ in range(nb)]
     bucket_res: list[list[np.ndarray]] = [[] for _ in range(nb)]
     while tables:
+        check(0)
         r = tables.pop()
         w = weights.pop()
         bucket = _bucket_of(r)
@@ -376,11 +390,12 @@ def _merge_tables(
     out_rows = []
     out_res = []
     for i in range(nb):
+        check(0)
         if bucket_rows[i]:
             rows = np.concatenate(bucket_rows[i])
             res = np.concatenate(bucket_res[i], axis=1)
             bucket_rows[i] = bucket_res[i] = []
-            r, w = _merge(rows, res, mods)
+            r, w = _merge(rows, res, mods, check)
             del rows, res
             out_rows.append(r)
             out_res.append(w)
