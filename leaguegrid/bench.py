@@ -189,9 +189,12 @@ def fmt(x: float | None) -> str:
     return "-" if x is None else f"{x:.3f}"
 
 
-def cancel_latency(G: nx.Graph, after: float, k: int | None = None) -> tuple[float, str]:
+def cancel_latency(
+    G: nx.Graph, after: float, k: int | None = None, wait: float | None = None
+) -> tuple[float, str]:
     """Start the exact polynomial (or the count at k rounds) in a thread, cancel it after
-    `after` seconds: the seconds until the engine returned, and how it ended."""
+    `after` seconds: the seconds until the engine returned (or `wait`, when given and it did
+    not), and how it ended ("finished", "cancelled", "stopped: ..." or "no answer")."""
     import threading
 
     from leaguegrid import engine
@@ -216,7 +219,7 @@ def cancel_latency(G: nx.Graph, after: float, k: int | None = None) -> tuple[flo
     t.join(after)
     cancel.set()
     asked = time.perf_counter()
-    t.join()
+    t.join(wait)
     return time.perf_counter() - asked, ended[0] if ended else "no answer"
 
 

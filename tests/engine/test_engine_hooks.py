@@ -2,15 +2,12 @@
 
 from __future__ import annotations
 
-import threading
-import time
-
 import networkx as nx
 import pytest
 
+from leaguegrid.bench import cancel_latency
 from leaguegrid.engine import (
     BudgetExceeded,
-    Cancelled,
     Hooks,
     chromatic_polynomial,
     count_assignments,
@@ -24,25 +21,9 @@ def long_case() -> nx.Graph:
 
 
 def test_cancel_from_another_thread_returns_quickly() -> None:
-    cancel = threading.Event()
-    outcome: list[object] = []
-
-    def work() -> None:
-        try:
-            chromatic_polynomial(long_case(), Hooks(cancel=cancel))
-            outcome.append("finished")
-        except Cancelled as exc:
-            outcome.append(exc)
-
-    t = threading.Thread(target=work)
-    t.start()
-    time.sleep(0.5)
-    cancel.set()
-    asked = time.monotonic()
-    t.join(timeout=5.0)
-    assert not t.is_alive(), "engine did not return within 5 s of the cancel"
-    assert time.monotonic() - asked < 5.0
-    assert isinstance(outcome[0], Cancelled)
+    seconds, outcome = cancel_latency(long_case(), 0.5, wait=5.0)
+    assert outcome == "cancelled", "engine did not return within 5 s of the cancel"
+    assert seconds < 5.0
 
 
 def test_budget_stops_exact_work() -> None:

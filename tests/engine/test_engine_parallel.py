@@ -2,15 +2,11 @@
 
 from __future__ import annotations
 
-import threading
-import time
-
 import networkx as nx
 import pytest
 
+from leaguegrid.bench import cancel_latency
 from leaguegrid.engine import (
-    Cancelled,
-    Hooks,
     chromatic_polynomial,
     count_assignments,
     count_table,
@@ -50,22 +46,9 @@ def test_cancel_stops_the_second_process(monkeypatch) -> None:
     monkeypatch.delenv(parallel.ENV, raising=False)
     big = nx.line_graph(nx.complete_graph(11))
     G = nx.disjoint_union(big, big)
-    cancel = threading.Event()
-    outcome: list[object] = []
-
-    def work() -> None:
-        try:
-            chromatic_polynomial(G, Hooks(cancel=cancel))
-        except Cancelled as exc:
-            outcome.append(exc)
-
-    t = threading.Thread(target=work)
-    t.start()
-    time.sleep(1.0)
-    cancel.set()
-    t.join(timeout=5.0)
-    assert not t.is_alive()
-    assert isinstance(outcome[0], Cancelled)
+    seconds, outcome = cancel_latency(G, 1.0, wait=5.0)
+    assert outcome == "cancelled"
+    assert seconds < 5.0
 
 
 @pytest.mark.parametrize("value", ["1"])
