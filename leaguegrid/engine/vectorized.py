@@ -5,10 +5,13 @@ rounds' sets as bitmasks (over "slots": each unplaced fixture gets a bit while i
 placed neighbour, at most 64 at a time) in increasing order after zero padding. Weights
 are residues modulo several primes below 2^31 whose product exceeds a proven upper bound
 on the count (count_bound); the count is rebuilt by the Chinese remainder theorem. A step
-builds every successor row at once, sorts each row, and merges equal rows: rows are grouped
-by a 64-bit hash (first by its high bits, sorted packed with the row index), and every row
-is then compared in full with its group's first row, so a collision is detected (and the
-grouping redone by the full hash, then by an exact lexicographic sort), never trusted.
+builds the successor rows a chunk (a set number of bytes) at a time, sorts each row, and
+merges equal rows: rows are grouped by a 64-bit hash (first by its high bits, sorted packed
+with the row index), and every row is then compared in full with its group's first row, so
+a collision is detected (and the grouping redone by the full hash, then by an exact
+lexicographic sort), never trusted. The chunks' merged tables are then dealt into a few
+buckets by a second hash and each bucket merged on its own, which keeps a step's memory
+near that of its tables rather than several copies of them.
 """
 
 from __future__ import annotations
@@ -351,8 +354,8 @@ def advance(
 
 
 def _bucket_of(rows: np.ndarray) -> np.ndarray:
-    """A bucket 0..NBUCKETS-1 for each row, equal for equal rows whatever their zero padding
-    (a sum of mixed entries, and a mixed zero is zero)."""
+    """A bucket 0..2^NBUCKET_BITS - 1 for each row, equal for equal rows whatever their zero
+    padding (a sum of mixed entries, and a mixed zero is zero)."""
     h = np.zeros(rows.shape[0], np.uint64)
     for c in range(rows.shape[1]):
         x = rows[:, c] * _M1
