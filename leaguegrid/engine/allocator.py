@@ -1,4 +1,5 @@
-"""The process's memory: keep freed memory for reuse (glibc only), and read what is resident.
+"""The process's memory: keep freed memory for reuse while the array programme runs and
+give it back afterwards (glibc only), and read what is resident.
 
 The array programme (vectorized.py) allocates and frees tables of tens to hundreds of MiB
 at every step. By default glibc hands each large block back to the system when it is
@@ -28,6 +29,18 @@ def resident_bytes() -> int | None:
             return int(f.read().split()[1]) * PAGE
     except (OSError, ValueError, IndexError):
         return None
+
+
+def release_freed_memory() -> None:
+    """Hand freed memory back to the system after the array programme (glibc's malloc_trim),
+    so that a long-lived process (the window's engine process) starts its next count from a
+    small resident set; a no-op elsewhere."""
+    if not sys.platform.startswith("linux"):
+        return
+    try:
+        ctypes.CDLL("libc.so.6").malloc_trim(0)
+    except (OSError, AttributeError):
+        return
 
 
 def keep_freed_memory() -> None:

@@ -20,7 +20,7 @@ from collections.abc import Callable
 
 from flint import fmpz_poly
 
-from .allocator import resident_bytes
+from .allocator import release_freed_memory, resident_bytes
 from .graph import Graph
 from .hooks import BudgetExceeded, Ticker
 from .orders import frontier_sizes
@@ -283,14 +283,24 @@ def _state_bytes(mode: str, param: object, step: int, width: int) -> int:
     return size + 40
 
 
+def _resident_too_high() -> bool:
+    """True when the resident memory passes RESIDENT_LIMIT even after freed memory that the
+    allocator kept (say from an earlier, stopped count) is handed back."""
+    resident = resident_bytes()
+    if resident is None or resident <= RESIDENT_LIMIT:
+        return False
+    release_freed_memory()
+    resident = resident_bytes()
+    return resident is not None and resident > RESIDENT_LIMIT
+
+
 def _guard(ticker: Ticker, limit: int, step: int, n: int) -> Check:
     """The check called while a table grows: cancel, budget, and the memory bound (the
     table's size, and where it can be read, the process's resident memory)."""
 
     def check(size: int) -> None:
         ticker.check()
-        resident = resident_bytes()
-        if size > limit or (resident is not None and resident > RESIDENT_LIMIT):
+        if size > limit or _resident_too_high():
             raise BudgetExceeded(
                 f"state table passed the memory bound ({size} states at step {step + 1} of {n})"
             )
@@ -352,7 +362,10 @@ def _vector_finish(g, order, start, layer, mode, param, ticker):
         ticker.report(step / max(n, 1), "counting")
 
     chunk = int(MEMORY_BYTES * VECTOR_CHUNK_SHARE)
-    got = vectorized.finish(g, order, start, layer, ks, check_for, progress, chunk)
+    try:
+        got = vectorized.finish(g, order, start, layer, ks, check_for, progress, chunk)
+    finally:
+        release_freed_memory()
     if got is None:
         return None
     return got[0] if mode == "at" else got

@@ -69,3 +69,30 @@ def test_resident_memory_bound_stops_exact_work(monkeypatch):
     rook = nx.cartesian_product(nx.complete_graph(4), nx.complete_graph(4))
     with pytest.raises(BudgetExceeded, match="memory bound"):
         count_assignments(rook, 4)
+
+
+def test_memory_kept_by_the_allocator_is_handed_back_before_the_bound_stops_work(monkeypatch):
+    from leaguegrid.engine import frontier
+
+    readings = iter([900 * 2**20, 100 * 2**20])  # high (freed memory kept), low after the trim
+    released = []
+    monkeypatch.setattr(frontier, "resident_bytes", lambda: next(readings))
+    monkeypatch.setattr(frontier, "release_freed_memory", lambda: released.append(1))
+    assert frontier._resident_too_high() is False
+    assert released == [1]
+
+
+def test_memory_in_use_stops_work_after_the_hand_back(monkeypatch):
+    from leaguegrid.engine import frontier
+
+    monkeypatch.setattr(frontier, "resident_bytes", lambda: 900 * 2**20)
+    monkeypatch.setattr(frontier, "release_freed_memory", lambda: None)
+    assert frontier._resident_too_high() is True
+
+
+def test_release_asks_glibc_to_trim(fake, monkeypatch):
+    calls = []
+    fake.malloc_trim = lambda pad: calls.append(pad)
+    monkeypatch.setattr(sys, "platform", "linux")
+    allocator.release_freed_memory()
+    assert calls == [0]
