@@ -199,10 +199,29 @@ def _fill_rows(report: CountReport, base: CountingModel, clock: _Clock, estimate
             row.groupings = _groupings_at(report, base, k, row, clock, start)
         row.exact = None not in (row.assignments, row.all_rounds_used, row.groupings)
         if not row.exact and estimate and row.assignments is None:
-            share = None if clock.estimate_seconds is None else clock.estimate_seconds / n
-            hooks = engine.Hooks(cancel=clock.cancel, budget=share)
-            row.assignments = clock.run(lambda m=model, k=k, h=hooks: engine.estimate_assignments(
-                m.graph, k, pins=m.pins, exclusions=m.exclusions, hooks=h))
+            _estimate_row(report, row, model, clock, n)
+
+
+def _estimate_row(report: CountReport, row: CountRow, model: CountingModel, clock: _Clock,
+                  n: int) -> None:
+    """Labelled estimates for the numbers of a row that exact work did not finish: the
+    assignments and every-round-used from the same draws, and (when nothing but clashes
+    constrains the league, so that they describe the same graph) groupings as
+    every-round-used / K!."""
+    k = row.rounds
+    share = None if clock.estimate_seconds is None else clock.estimate_seconds / n
+    hooks = engine.Hooks(cancel=clock.cancel, budget=share)
+    got = clock.run(lambda: engine.estimate_counts(
+        model.graph, k, pins=model.pins, exclusions=model.exclusions, hooks=hooks))
+    if got is None:
+        return
+    row.assignments, every = got
+    if row.all_rounds_used is None:
+        row.all_rounds_used = every
+    if row.groupings is None and not report.pinned:
+        f = math.factorial(k)
+        row.groupings = engine.Estimate(every.value // f, every.low // f, -(-every.high // f),
+                                        f"{every.method}, every round used / {k}!")
 
 
 def _groupings_at(report: CountReport, base: CountingModel, k: int, row: CountRow,

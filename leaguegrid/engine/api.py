@@ -19,7 +19,7 @@ from .chromatic_number import (
     greedy_pass,
     max_clique,
 )
-from .estimate import Estimate, sis_estimate
+from .estimate import Estimate, sis_estimates
 from .falling import falling, to_falling
 from .graph import Graph, from_networkx
 from .hooks import BudgetExceeded, Hooks, NoAssignment, Ticker
@@ -399,6 +399,18 @@ def estimate_assignments(
     hooks: Hooks | None = None,
 ) -> Estimate:
     """An estimate (never exact) of count_assignments, with an approximate interval."""
+    return estimate_counts(G, k, pins, exclusions, hooks)[0]
+
+
+def estimate_counts(
+    G: nx.Graph,
+    k: int,
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> tuple[Estimate, Estimate]:
+    """Estimates (never exact) of count_assignments and count_all_rounds_used at k, from the
+    same sequential importance sampling draws, each with an approximate interval."""
     _check_k(k)
     ticker = Ticker(hooks)
     ticker.report(0.0, "starting")
@@ -406,7 +418,10 @@ def estimate_assignments(
     doms = domains_for(g.n, k, ip, ie) if k > 0 else None
     if doms is None or (g.loop and g.n):
         zero = 1 if g.n == 0 else 0
-        return Estimate(zero, zero, zero, "exact: no assignment is possible")
-    est = sis_estimate(g, doms, ticker, random.Random(0))
+        none = Estimate(zero, zero, zero, "exact: no assignment is possible")
+        return none, none
+    est, every = sis_estimates(g, doms, k, ticker, random.Random(0))
+    if k > g.n:
+        every = Estimate(0, 0, 0, "exact: more rounds than fixtures, so some round is empty")
     ticker.report(1.0, "done")
-    return est
+    return est, every

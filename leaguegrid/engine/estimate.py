@@ -10,6 +10,10 @@ draws is the value; the interval is mean +/- 1.96 standard errors, an approximat
 can be too narrow when the weights are heavy-tailed, so it is always shown as an estimate.
 The high end never exceeds the proven bound (product of each fixture's allowed rounds);
 with no valid draw it is that bound and the low end is 0.
+
+The same draws also estimate the assignments that use every round: a draw's weight counts
+towards it only when its leaf uses all K rounds (the indicator is a function of the leaf,
+so the estimator stays unbiased).
 """
 
 from __future__ import annotations
@@ -23,32 +27,36 @@ from .graph import Graph, bits
 from .hooks import Ticker
 
 
-def _one_draw(adj: list[int], domains: list[int], by_degree: list[int], rng: random.Random) -> int:
+def _one_draw(
+    adj: list[int], domains: list[int], by_degree: list[int], rng: random.Random
+) -> tuple[int, int]:
     """One path down the search tree: the most constrained fixture next (fewest allowed
-    rounds, then most clashes), a round drawn uniformly from those allowed; the product of
-    the numbers of choices, or 0 at a dead end."""
+    rounds, then most clashes), a round drawn uniformly from those allowed. Returns the
+    product of the numbers of choices (0 at a dead end) and the rounds the leaf uses."""
     avail = list(domains)
     count = [d.bit_count() for d in domains]
     left = list(by_degree)
     w = 1
+    used = 0
     while left:
         v = min(left, key=count.__getitem__)
         left.remove(v)
         a = count[v]
         if a == 0:
-            return 0
+            return 0, used
         w *= a
         pick = rng.randrange(a)
         for r0 in bits(avail[v]):
             if pick == 0:
                 bit = 1 << r0
+                used |= bit
                 for u in bits(adj[v]):
                     if avail[u] & bit:
                         avail[u] ^= bit
                         count[u] -= 1
                 break
             pick -= 1
-    return w
+    return w, used
 
 
 @dataclass(frozen=True)
@@ -72,10 +80,24 @@ def sis_estimate(
 
     Deterministic for a given rng seed; stops early (fewer draws) only when the caller's
     budget is nearly spent."""
+    return sis_estimates(g, domains, 0, ticker, rng, draws)[0]
+
+
+def sis_estimates(
+    g: Graph,
+    domains: list[int],
+    rounds: int,
+    ticker: Ticker,
+    rng: random.Random,
+    draws: int = 2000,
+) -> tuple[Estimate, Estimate]:
+    """Estimates of the colourings of g within `domains`, and of those that use every one of
+    rounds 1..`rounds`, from the same draws (see sis_estimate)."""
     adj = g.adj
     n = g.n
     weights: list[int] = []
-    found = False
+    full: list[int] = []
+    every = (1 << rounds) - 1
     left = ticker.remaining()
     stop = None if left is None else time.monotonic() + left / 2
     by_degree = sorted(range(n), key=lambda v: -adj[v].bit_count())
@@ -84,11 +106,21 @@ def sis_estimate(
             ticker.report(d / draws, "estimating")
             if d and stop is not None and time.monotonic() > stop:
                 break
-        w = _one_draw(adj, domains, by_degree, rng)
-        if w:
-            found = True
+        w, used = _one_draw(adj, domains, by_degree, rng)
         weights.append(w)
+        full.append(w if used & every == every else 0)
+    ceiling = 1
+    for d in domains:
+        ceiling *= d.bit_count()
+    ticker.report(1.0, "estimating")
+    return _summary(weights, ceiling), _summary(full, ceiling)
+
+
+def _summary(weights: list[int], ceiling: int) -> Estimate:
+    """Mean of the draws' weights with an approximate 95% interval, clipped to [0, ceiling]
+    (at least 1 when some draw reached a counted leaf)."""
     m = len(weights)
+    found = any(weights)
     total = sum(weights)
     squares = sum(w * w for w in weights)
     scale = 10**6
@@ -97,13 +129,9 @@ def sis_estimate(
     den = m * m * max(m - 1, 1) * 100 * 100
     spread = math.isqrt(num // den) + 1
     mean = total * scale // m
-    ceiling = 1
-    for d in domains:
-        ceiling *= d.bit_count()
     value = (2 * total + m) // (2 * m)
     low = max(-(-(mean - spread) // scale), 1 if found else 0)
     high = min((mean + spread) // scale + 1, ceiling) if found else ceiling
-    ticker.report(1.0, "estimating")
     return Estimate(
         value=value,
         low=low,

@@ -94,6 +94,22 @@ def test_count_budget_exhausted_exits_5_and_marks_rows(cli, demo) -> None:
     assert any(row["exact"] is False for row in data["counts"]) or data["min_rounds"] is None
 
 
+def test_unfinished_rows_carry_labelled_estimates_of_all_three_numbers(cli, demo) -> None:
+    # With no pins, groupings = every-round-used / K! (falling-factorial identity), so the
+    # groupings estimate is the every-round-used estimate divided by K!.
+    code, out, _ = cli("count", str(demo / "bigseason.xlsx"), "--rounds", "18", "--budget",
+                       "3", "--json")
+    assert code == 5
+    row = json.loads(out)["counts"][0]
+    assert row["rounds"] == 18 and row["exact"] is False
+    every = row["all_rounds_used"]
+    assert every["method"].startswith("sequential importance sampling")
+    assert every["low"] <= every["value"] <= every["high"]
+    assert row["assignments"]["low"] <= every["value"] <= row["assignments"]["high"]
+    assert row["groupings"]["value"] == every["value"] // math.factorial(18)
+    assert row["groupings"]["method"] == every["method"] + ", every round used / 18!"
+
+
 def test_check_reports_input_problems_with_exit_1(cli, workbook) -> None:
     book = workbook("bad.xlsx", {"Fixtures": [
         ("Home", "Away"),

@@ -4,7 +4,14 @@ from __future__ import annotations
 
 import networkx as nx
 
-from leaguegrid.engine import Cost, count_assignments, estimate_assignments, estimate_cost
+from leaguegrid.engine import (
+    Cost,
+    count_all_rounds_used,
+    count_assignments,
+    estimate_assignments,
+    estimate_cost,
+    estimate_counts,
+)
 from leaguegrid.engine.frontier import step_masks, successors
 from leaguegrid.engine.graph import from_networkx
 from leaguegrid.engine.orders import best_order
@@ -51,3 +58,32 @@ def test_cost_of_small_graph_is_its_largest_table() -> None:
     assert cost.states == largest
     assert cost.seconds > 0
     assert estimate_cost(G, 5).states <= cost.states
+
+
+def test_every_round_used_estimate_comes_from_the_same_draws() -> None:
+    # Three fixtures with no clash and 3 rounds: 27 assignments, 3! = 6 use every round
+    # (textbook: surjections of a 3-set onto a 3-set). Every draw has weight 27, and a draw
+    # counts towards every-round-used only when its leaf uses all three rounds.
+    est, every = estimate_counts(nx.empty_graph(3), 3)
+    assert (est.value, est.low, est.high) == (27, 27, 27)
+    assert every.low <= 6 <= every.high
+    assert abs(every.value - 6) <= 1
+    assert every.method == est.method
+
+
+def test_every_round_used_estimate_brackets_exact_count() -> None:
+    G = nx.petersen_graph()
+    for k in (4, 5):
+        exact = count_all_rounds_used(G, k)
+        est, every = estimate_counts(G, k)
+        assert est.value == estimate_assignments(G, k).value  # the same seeded draws
+        half = max(every.high - every.value, every.value - every.low)
+        assert every.low <= every.value <= every.high
+        assert abs(every.value - exact) <= 3 * half
+
+
+def test_every_round_used_is_zero_with_more_rounds_than_fixtures() -> None:
+    est, every = estimate_counts(nx.path_graph(2), 3)
+    assert est.low <= 6 <= est.high  # P(path on 2 vertices, 3) = 3 x 2
+    assert (every.value, every.low, every.high) == (0, 0, 0)
+    assert every.method.startswith("exact:")
