@@ -220,7 +220,9 @@ def _estimate_row(report: CountReport, row: CountRow, model: CountingModel, cloc
         row.all_rounds_used = every
     if row.groupings is None and not report.pinned:
         f = math.factorial(k)
-        row.groupings = engine.Estimate(every.value // f, every.low // f, -(-every.high // f),
+        low = -(-every.low // f)  # groupings are whole: at least ceil(low / K!), 1 if low >= 1
+        row.groupings = engine.Estimate((2 * every.value + f) // (2 * f), low,
+                                        -(-every.high // f),
                                         f"{every.method}, every round used / {k}!")
 
 
