@@ -19,10 +19,11 @@ from .chromatic_number import (
     greedy_pass,
     max_clique,
 )
-from .estimate import Estimate, sis_estimates
+from .estimate import Estimate, summarise
 from .falling import falling, to_falling
 from .graph import Graph, from_networkx
 from .hooks import BudgetExceeded, Hooks, NoAssignment, Ticker
+from .parallel import estimate_draws
 from .pins import assignment_back, transform
 from .sampling import Sampler
 
@@ -420,7 +421,7 @@ def estimate_counts(
         zero = 1 if g.n == 0 else 0
         none = Estimate(zero, zero, zero, "exact: no assignment is possible")
         return none, none
-    est, every = sis_estimates(g, doms, k, ticker, random.Random(0))
+    est, every = summarise(*estimate_draws(g, doms, k, ticker), doms)
     if k > g.n:
         every = Estimate(0, 0, 0, "exact: more rounds than fixtures, so some round is empty")
     ticker.report(1.0, "done")

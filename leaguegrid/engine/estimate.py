@@ -69,38 +69,24 @@ class Estimate:
     method: str
 
 
-def sis_estimate(
-    g: Graph,
-    domains: list[int],
-    ticker: Ticker,
-    rng: random.Random,
-    draws: int = 2000,
-) -> Estimate:
-    """Estimate the number of colourings of g within `domains` (bit r-1 = round r allowed).
-
-    Deterministic for a given rng seed; stops early (fewer draws) only when the caller's
-    budget is nearly spent."""
-    return sis_estimates(g, domains, 0, ticker, rng, draws)[0]
-
-
-def sis_estimates(
+def sis_draws(
     g: Graph,
     domains: list[int],
     rounds: int,
     ticker: Ticker,
     rng: random.Random,
-    draws: int = 2000,
-) -> tuple[Estimate, Estimate]:
-    """Estimates of the colourings of g within `domains`, and of those that use every one of
-    rounds 1..`rounds`, from the same draws (see sis_estimate)."""
+    draws: int,
+) -> tuple[list[int], list[int]]:
+    """The weights of up to `draws` draws, and the same weights where the draw's leaf uses
+    every one of rounds 1..`rounds` (0 elsewhere). Deterministic for a given rng seed;
+    stops early (fewer draws) only when half the caller's remaining budget is spent."""
     adj = g.adj
-    n = g.n
     weights: list[int] = []
     full: list[int] = []
     every = (1 << rounds) - 1
     left = ticker.remaining()
     stop = None if left is None else time.monotonic() + left / 2
-    by_degree = sorted(range(n), key=lambda v: -adj[v].bit_count())
+    by_degree = sorted(range(g.n), key=lambda v: -adj[v].bit_count())
     for d in range(draws):
         if d % 64 == 0:
             ticker.report(d / draws, "estimating")
@@ -109,10 +95,17 @@ def sis_estimates(
         w, used = _one_draw(adj, domains, by_degree, rng)
         weights.append(w)
         full.append(w if used & every == every else 0)
+    ticker.report(1.0, "estimating")
+    return weights, full
+
+
+def summarise(
+    weights: list[int], full: list[int], domains: list[int]
+) -> tuple[Estimate, Estimate]:
+    """The estimates of all colourings and of those using every round, from the draws."""
     ceiling = 1
     for d in domains:
         ceiling *= d.bit_count()
-    ticker.report(1.0, "estimating")
     return _summary(weights, ceiling), _summary(full, ceiling)
 
 

@@ -262,13 +262,17 @@ MEMORY_BYTES = 400 * 2**20  # bound on one state table; two are alive at a time
 # The array path (vectorized.py) holds the previous table, the new table's chunks before
 # their final merge (bounded at 3/4 of MEMORY_BYTES), one bucket's merge copies, and one
 # chunk of successors (1/5) with its sort and merge copies. Where the process's resident
-# memory can be read (Linux), every check also stops past RESIDENT_LIMIT, so that the one
-# step in progress stays under 1 GiB. Measured peaks: 10-team round-robin at 9 rounds
-# 646 MiB; stopped at the bound: the 90-fixture demo season at 18 rounds 762 MiB (all
-# rounds used 807 MiB), clubday-60's counts table 788 MiB.
+# memory can be read (Linux), every check also stops when it has grown by RESIDENT_GROWTH
+# since the programme started (freed memory kept by the allocator is handed back first),
+# so that in a fresh process the step in progress stays under 1 GiB; growth, not the total,
+# so that a long-lived process (the window's engine) is not stopped by what earlier work
+# left behind. Measured peaks: 10-team round-robin at 9 rounds 646 MiB; stopped at the
+# bound: the 90-fixture demo season at 18 rounds 762 MiB (all rounds used 807 MiB),
+# clubday-60's counts table 788 MiB.
 VECTOR_TABLE_SHARE = 3 / 4
 VECTOR_CHUNK_SHARE = 1 / 5
-RESIDENT_LIMIT = 760 * 2**20
+RESIDENT_GROWTH = 700 * 2**20
+TRIM_ABOVE = 200 * 2**20  # resident memory above which a programme first hands back freed memory
 
 
 def _state_bytes(mode: str, param: object, step: int, width: int) -> int:
@@ -283,24 +287,34 @@ def _state_bytes(mode: str, param: object, step: int, width: int) -> int:
     return size + 40
 
 
-def _resident_too_high() -> bool:
-    """True when the resident memory passes RESIDENT_LIMIT even after freed memory that the
-    allocator kept (say from an earlier, stopped count) is handed back."""
+def resident_baseline() -> int | None:
+    """The resident memory a programme starts from (None where it cannot be read), after
+    handing back freed memory when there is much of it (say from an earlier, stopped count)."""
     resident = resident_bytes()
-    if resident is None or resident <= RESIDENT_LIMIT:
+    if resident is not None and resident > TRIM_ABOVE:
+        release_freed_memory()
+        resident = resident_bytes()
+    return resident
+
+
+def _resident_too_high(base: int | None) -> bool:
+    """True when the resident memory has grown by more than RESIDENT_GROWTH since `base`,
+    even after freed memory that the allocator kept is handed back."""
+    resident = resident_bytes()
+    if base is None or resident is None or resident - base <= RESIDENT_GROWTH:
         return False
     release_freed_memory()
     resident = resident_bytes()
-    return resident is not None and resident > RESIDENT_LIMIT
+    return resident is not None and resident - base > RESIDENT_GROWTH
 
 
-def _guard(ticker: Ticker, limit: int, step: int, n: int) -> Check:
+def _guard(ticker: Ticker, limit: int, step: int, n: int, base: int | None) -> Check:
     """The check called while a table grows: cancel, budget, and the memory bound (the
-    table's size, and where it can be read, the process's resident memory)."""
+    table's size, and where it can be read, the growth of the resident memory since `base`)."""
 
     def check(size: int) -> None:
         ticker.check()
-        if size > limit or _resident_too_high():
+        if size > limit or _resident_too_high(base):
             raise BudgetExceeded(
                 f"state table passed the memory bound ({size} states at step {step + 1} of {n})"
             )
@@ -322,15 +336,17 @@ def run(g: Graph, order: list[int], mode: str, param: object, one: object, ticke
     n = len(steps)
     layer: dict = {(): one}
     vector = mode != "packed"
+    base = resident_baseline()
     for i, (vb, nb) in enumerate(steps):
         ticker.report(i / max(n, 1), "counting")
         if vector and len(layer) >= VECTOR_THRESHOLD:
-            done = _vector_finish(g, order, i, layer, mode, param, ticker)
+            done = _vector_finish(g, order, i, layer, mode, param, ticker, base)
             if done is not _NOT_VECTOR:
                 ticker.report(1.0, "counting")
                 return done
             vector = False
-        check = _guard(ticker, MEMORY_BYTES // _state_bytes(mode, param, i, widths[i]), i, n)
+        limit = MEMORY_BYTES // _state_bytes(mode, param, i, widths[i])
+        check = _guard(ticker, limit, i, n, base)
         layer = advance(layer, vb, nb, param, check)
         check(len(layer))
         if not layer:
@@ -342,7 +358,7 @@ def run(g: Graph, order: list[int], mode: str, param: object, one: object, ticke
 _NOT_VECTOR = object()
 
 
-def _vector_finish(g, order, start, layer, mode, param, ticker):
+def _vector_finish(g, order, start, layer, mode, param, ticker, base):
     """The rest of a fixed-k programme on arrays, or _NOT_VECTOR when it does not fit."""
     from . import vectorized
 
@@ -356,7 +372,7 @@ def _vector_finish(g, order, start, layer, mode, param, ticker):
 
     def check_for(step: int) -> Check:
         limit = int(MEMORY_BYTES * VECTOR_TABLE_SHARE) // vectorized.bytes_per_row(max(ks), lines)
-        return _guard(ticker, limit, step, n)
+        return _guard(ticker, limit, step, n, base)
 
     def progress(step: int) -> None:
         ticker.report(step / max(n, 1), "counting")

@@ -1,10 +1,12 @@
-"""Independent pieces on both cores: the heaviest piece runs in a second process.
+"""Independent work on both cores: pieces of a graph, and estimate draws.
 
 After the reductions a graph may fall into several irreducible pieces whose programmes do
 not interact. When at least two of them are heavy (by the order score), the heaviest is
-computed in a child process while this process does the others. The parent checks cancel
-and budget while it waits and kills the child when it stops; the child keeps half the
-memory bound. Set LEAGUEGRID_ENGINE_PROCESSES=1 to keep everything in one process.
+computed in a child process while this process does the others. The draws of an estimate
+(estimate.py) are independent too: on large graphs half of them run in a child process
+with its own seed, so that a budget buys twice the draws. The parent checks cancel and
+budget while it waits and kills the child when it stops; the child keeps half the memory
+bound. Set LEAGUEGRID_ENGINE_PROCESSES=1 to keep everything in one process.
 
 (Splitting one programme's layers between two processes was measured and rejected: the
 exchange of states after every step cost as much CPU as it saved.)
@@ -14,17 +16,21 @@ from __future__ import annotations
 
 import multiprocessing as mp
 import os
+import random
 import threading
 from collections.abc import Callable
 from multiprocessing.connection import Connection
 
 from flint import fmpz_poly
 
+from .estimate import sis_draws
 from .graph import Graph
 from .hooks import BudgetExceeded, Hooks, Ticker
 
 ENV = "LEAGUEGRID_ENGINE_PROCESSES"
 PARALLEL_SCORE = 10**9  # order score from which a piece is worth a second process
+SIS_PARALLEL_FROM = 40  # fixtures from which an estimate's draws are shared with a child
+SIS_DRAWS = 2000
 
 
 def available() -> bool:
@@ -34,9 +40,12 @@ def available() -> bool:
     return not mp.current_process().daemon
 
 
-def _compute(kind: str, g: Graph, order: list[int], param: object, ticker: Ticker):
+def _compute(kind: str, g: Graph, order: list[int], param, ticker: Ticker):
     from .frontier import count_at, count_many, count_polynomial
 
+    if kind == "sis":
+        domains, rounds, seed, draws = param
+        return sis_draws(g, domains, rounds, ticker, random.Random(seed), draws)
     if kind == "poly":
         return count_polynomial(g, order, ticker)
     if kind == "at":
@@ -49,7 +58,7 @@ def _work(conn: Connection, kind: str, adj: list[int], order: list[int], param, 
     from . import frontier
 
     frontier.MEMORY_BYTES //= 2
-    frontier.RESIDENT_LIMIT //= 2
+    frontier.RESIDENT_GROWTH //= 2
     try:
         out = _compute(kind, Graph(adj), order, param, Ticker(Hooks(budget=left)))
         if isinstance(out, fmpz_poly):
@@ -133,3 +142,20 @@ def solve_pieces(
         if back is not None:
             back.close()
     return results
+
+
+def estimate_draws(
+    g: Graph, domains: list[int], rounds: int, ticker: Ticker, draws: int = SIS_DRAWS
+) -> tuple[list[int], list[int]]:
+    """The draws of an estimate (estimate.sis_draws, seed 0); on graphs of SIS_PARALLEL_FROM
+    fixtures or more, half of them in a second process with seed 1."""
+    if g.n < SIS_PARALLEL_FROM or not available():
+        return sis_draws(g, domains, rounds, ticker, random.Random(0), draws)
+    half = draws // 2
+    back = Background("sis", g, [], (domains, rounds, 1, half), ticker.remaining())
+    try:
+        weights, full = sis_draws(g, domains, rounds, ticker, random.Random(0), draws - half)
+        more, more_full = back.result(ticker)
+    finally:
+        back.close()
+    return weights + more, full + more_full

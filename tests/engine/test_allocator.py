@@ -64,30 +64,52 @@ def test_resident_memory_bound_stops_exact_work(monkeypatch):
 
     from leaguegrid.engine import BudgetExceeded, count_assignments, frontier, solve
 
-    monkeypatch.setattr(frontier, "RESIDENT_LIMIT", 1)
+    monkeypatch.setattr(frontier, "RESIDENT_GROWTH", -(2**40))  # any reading is too much
     monkeypatch.setattr(solve, "_CACHE", OrderedDict())  # no count remembered from elsewhere
     rook = nx.cartesian_product(nx.complete_graph(4), nx.complete_graph(4))
     with pytest.raises(BudgetExceeded, match="memory bound"):
         count_assignments(rook, 4)
 
 
+MIB = 2**20
+
+
 def test_memory_kept_by_the_allocator_is_handed_back_before_the_bound_stops_work(monkeypatch):
     from leaguegrid.engine import frontier
 
-    readings = iter([900 * 2**20, 100 * 2**20])  # high (freed memory kept), low after the trim
+    readings = iter([900 * MIB, 100 * MIB])  # high (freed memory kept), low after the trim
     released = []
     monkeypatch.setattr(frontier, "resident_bytes", lambda: next(readings))
     monkeypatch.setattr(frontier, "release_freed_memory", lambda: released.append(1))
-    assert frontier._resident_too_high() is False
+    assert frontier._resident_too_high(60 * MIB) is False
     assert released == [1]
 
 
 def test_memory_in_use_stops_work_after_the_hand_back(monkeypatch):
     from leaguegrid.engine import frontier
 
-    monkeypatch.setattr(frontier, "resident_bytes", lambda: 900 * 2**20)
+    monkeypatch.setattr(frontier, "resident_bytes", lambda: 900 * MIB)
     monkeypatch.setattr(frontier, "release_freed_memory", lambda: None)
-    assert frontier._resident_too_high() is True
+    assert frontier._resident_too_high(60 * MIB) is True  # grew by 840 MiB > 700 MiB
+
+
+def test_the_bound_is_on_growth_not_on_what_earlier_work_left(monkeypatch):
+    from leaguegrid.engine import frontier
+
+    monkeypatch.setattr(frontier, "resident_bytes", lambda: 900 * MIB)
+    monkeypatch.setattr(frontier, "release_freed_memory", lambda: None)
+    assert frontier._resident_too_high(500 * MIB) is False  # grew by 400 MiB only
+
+
+def test_a_programme_starts_by_handing_back_much_freed_memory(monkeypatch):
+    from leaguegrid.engine import frontier
+
+    readings = iter([600 * MIB, 90 * MIB])
+    released = []
+    monkeypatch.setattr(frontier, "resident_bytes", lambda: next(readings))
+    monkeypatch.setattr(frontier, "release_freed_memory", lambda: released.append(1))
+    assert frontier.resident_baseline() == 90 * MIB
+    assert released == [1]
 
 
 def test_release_asks_glibc_to_trim(fake, monkeypatch):

@@ -1,6 +1,8 @@
-"""Independent pieces computed in a second process give the same results, and stop."""
+"""Work done in a second process (graph pieces, estimate draws): same results, and it stops."""
 
 from __future__ import annotations
+
+import random
 
 import networkx as nx
 import pytest
@@ -12,6 +14,9 @@ from leaguegrid.engine import (
     count_table,
     parallel,
 )
+from leaguegrid.engine.estimate import sis_draws
+from leaguegrid.engine.graph import from_networkx
+from leaguegrid.engine.hooks import Ticker
 
 
 def two_pieces() -> nx.Graph:
@@ -44,9 +49,11 @@ def test_second_process_gives_the_same_results(monkeypatch) -> None:
 def test_cancel_stops_the_second_process(monkeypatch) -> None:
     monkeypatch.setattr(parallel, "PARALLEL_SCORE", 0)
     monkeypatch.delenv(parallel.ENV, raising=False)
-    big = nx.line_graph(nx.complete_graph(11))
-    G = nx.disjoint_union(big, big)
-    seconds, outcome = cancel_latency(G, 1.0, wait=5.0)
+    # Two copies of the 5x5 rook's graph: each polynomial takes about 1.5 s in 110 MiB, so
+    # both are still running, well inside the memory bound, when the cancel comes.
+    rook = nx.cartesian_product(nx.complete_graph(5), nx.complete_graph(5))
+    G = nx.disjoint_union(rook, rook)
+    seconds, outcome = cancel_latency(G, 0.5, wait=5.0)
     assert outcome == "cancelled"
     assert seconds < 5.0
 
@@ -55,3 +62,25 @@ def test_cancel_stops_the_second_process(monkeypatch) -> None:
 def test_single_process_switch(monkeypatch, value: str) -> None:
     monkeypatch.setenv(parallel.ENV, value)
     assert not parallel.available()
+
+
+def test_estimate_draws_are_shared_with_a_second_process(monkeypatch) -> None:
+    # Half the draws come from the child (seed 1), the rest from this process (seed 0): the
+    # pooled draws are exactly the two seeded runs side by side.
+    monkeypatch.delenv(parallel.ENV, raising=False)
+    monkeypatch.setattr(parallel, "SIS_PARALLEL_FROM", 5)
+    g, _ = from_networkx(nx.petersen_graph())
+    domains = [0b111] * g.n
+    here = sis_draws(g, domains, 3, Ticker(), random.Random(0), 30)
+    there = sis_draws(g, domains, 3, Ticker(), random.Random(1), 30)
+    pooled = parallel.estimate_draws(g, domains, 3, Ticker(), draws=60)
+    assert pooled == (here[0] + there[0], here[1] + there[1])
+
+
+def test_estimate_draws_stay_in_one_process_when_asked(monkeypatch) -> None:
+    monkeypatch.setenv(parallel.ENV, "1")
+    monkeypatch.setattr(parallel, "SIS_PARALLEL_FROM", 5)
+    g, _ = from_networkx(nx.petersen_graph())
+    domains = [0b111] * g.n
+    alone = parallel.estimate_draws(g, domains, 3, Ticker(), draws=60)
+    assert alone == sis_draws(g, domains, 3, Ticker(), random.Random(0), 60)
