@@ -266,9 +266,9 @@ MEMORY_BYTES = 400 * 2**20  # bound on one state table; two are alive at a time
 # since the programme started (freed memory kept by the allocator is handed back first),
 # so that in a fresh process the step in progress stays under 1 GiB; growth, not the total,
 # so that a long-lived process (the window's engine) is not stopped by what earlier work
-# left behind. Measured peaks: 10-team round-robin at 9 rounds 646 MiB; stopped at the
-# bound: the 90-fixture demo season at 18 rounds 762 MiB (all rounds used 807 MiB),
-# clubday-60's counts table 788 MiB.
+# left behind. Measured peaks: 10-team round-robin at 9 rounds 620-653 MiB; stopped at
+# the bound: the 90-fixture demo season at 18 rounds 851 MiB (all rounds used 808 MiB),
+# clubday-60's counts table 821 MiB.
 VECTOR_TABLE_SHARE = 3 / 4
 VECTOR_CHUNK_SHARE = 1 / 5
 RESIDENT_GROWTH = 700 * 2**20
