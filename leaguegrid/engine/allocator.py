@@ -6,8 +6,8 @@ at every step. By default glibc hands each large block back to the system when i
 freed, and the next step faults the same pages in again: on the 10-team round-robin count
 at 9 rounds that was a third of the run (8.2 s, of which 2.9 s in the kernel). Raising the
 mmap threshold to its largest allowed value (32 MiB) and keeping 256 MiB of padding at the
-top of the heap lets the next step reuse them (5.7 s, peak resident memory 0.86 GiB
-instead of 0.83 GiB). On other C libraries (macOS, Windows, musl) nothing changes.
+top of the heap lets the next step reuse them (5.7 s when measured, for 0.03 GiB more peak
+memory). On other C libraries (macOS, Windows, musl) nothing changes.
 """
 
 from __future__ import annotations
