@@ -77,10 +77,21 @@ def count(league: League, graph: nx.Graph, progress: Progress, cancel: threading
 def count_with_estimate(league: League, graph: nx.Graph, progress: Progress,
                         cancel: threading.Event, budget: float | None = COUNT_BUDGET) -> Any:
     """The counts table, saying first how long the work may take when that is long."""
-    seconds = estimate_seconds(graph)
-    if seconds is not None and seconds > LONG_WORK_SECONDS:
-        progress(0.0, f"Counting; this may take about {seconds:.0f} s (Esc cancels)")
+    text = long_work_text(estimate_seconds(graph), budget)
+    if text is not None:
+        progress(0.0, text)
     return count(league, graph, progress, cancel, budget=budget)
+
+
+def long_work_text(seconds: float | None, budget: float | None) -> str | None:
+    """What the window says before a long count: the engine's guess of the time, or, when
+    that passes the budget, that what does not finish in time will be estimated."""
+    if seconds is None or seconds <= LONG_WORK_SECONDS:
+        return None
+    if budget is not None and seconds > budget:
+        return (f"Counting; the exact work may take longer than the {budget:.0f} s allowed: what "
+                "does not finish in time is shown as a labelled estimate (Esc cancels)")
+    return f"Counting; this may take about {seconds:.0f} s (Esc cancels)"
 
 
 def polynomial_of_graph(graph: nx.Graph, progress: Progress, cancel: threading.Event) -> Any:

@@ -10,7 +10,7 @@ import sys  # noqa: E402
 import pytest  # noqa: E402
 
 from leaguegrid.engine import Estimate  # noqa: E402
-from leaguegrid.gui import numbers, startup  # noqa: E402
+from leaguegrid.gui import bridge, numbers, startup  # noqa: E402
 
 
 def test_exact_counts_are_grouped_and_huge_ones_get_a_short_form():
@@ -73,3 +73,14 @@ def test_run_returns_1_with_a_sentence_instead_of_an_abort_when_no_display():
     assert len(lines) == 1
     assert lines[0].startswith("The LeagueGrid window cannot start")
     assert "keep working" in lines[0]
+
+
+def test_long_work_is_announced_against_the_budget():
+    assert bridge.long_work_text(None, 60) is None  # no guess, nothing said
+    assert bridge.long_work_text(3.0, 60) is None  # a blink
+    assert bridge.long_work_text(40.0, 60) == "Counting; this may take about 40 s (Esc cancels)"
+    assert bridge.long_work_text(420.0, 60) == (
+        "Counting; the exact work may take longer than the 60 s allowed: what does not finish "
+        "in time is shown as a labelled estimate (Esc cancels)")
+    assert bridge.long_work_text(420.0, None) == (
+        "Counting; this may take about 420 s (Esc cancels)")
