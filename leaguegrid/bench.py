@@ -102,7 +102,7 @@ def run_one(G: nx.Graph, mode: str, k: int | None) -> dict:
     t = time.perf_counter()
     c = time.process_time()
     try:
-        value, text = _compute(engine, G, mode, k)
+        value, text = _compute(G, mode, k)
     except engine.BudgetExceeded as exc:
         value, text, stopped = None, "", str(exc)
     else:
@@ -120,8 +120,10 @@ def run_one(G: nx.Graph, mode: str, k: int | None) -> dict:
     }
 
 
-def _compute(engine: ModuleType, G: nx.Graph, mode: str, k: int | None) -> tuple[int | None, str]:
+def _compute(G: nx.Graph, mode: str, k: int | None) -> tuple[int | None, str]:
     """The mode's result (a count or None) and its text for the digest."""
+    from leaguegrid import engine
+
     if mode == "poly":
         p = engine.chromatic_polynomial(G)
         return None, " ".join(str(int(c)) for c in reversed(p.coeffs()))

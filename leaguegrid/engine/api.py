@@ -94,8 +94,8 @@ def _count_on_rounds(
 def _counted(
     count, G: nx.Graph, k: int, pins: Pins | None, exclusions: Exclusions | None,
     hooks: Hooks | None,
-) -> int:
-    """Check k, prepare the graph, run one exact count with progress from 0 to 1."""
+):
+    """Check k, prepare the graph, run one count (exact or estimated) with progress 0 to 1."""
     _check_k(k)
     ticker = Ticker(hooks)
     ticker.report(0.0, "starting")
@@ -412,10 +412,13 @@ def estimate_counts(
 ) -> tuple[Estimate, Estimate]:
     """Estimates (never exact) of count_assignments and count_all_rounds_used at k, from the
     same sequential importance sampling draws, each with an approximate interval."""
-    _check_k(k)
-    ticker = Ticker(hooks)
-    ticker.report(0.0, "starting")
-    g, _, ip, ie = _prepare(G, pins, exclusions)
+    return _counted(_estimates, G, k, pins, exclusions, hooks)
+
+
+def _estimates(
+    g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Ticker
+) -> tuple[Estimate, Estimate]:
+    """The two estimates of estimate_counts on the engine's graph."""
     doms = domains_for(g.n, k, ip, ie) if k > 0 else None
     if doms is None or (g.loop and g.n):
         zero = 1 if g.n == 0 else 0
@@ -424,5 +427,4 @@ def estimate_counts(
     est, every = summarise(*estimate_draws(g, doms, k, ticker), doms)
     if k > g.n:
         every = Estimate(0, 0, 0, "exact: more rounds than fixtures, so some round is empty")
-    ticker.report(1.0, "done")
     return est, every
