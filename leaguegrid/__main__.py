@@ -1,8 +1,8 @@
-"""`python -m leaguegrid` runs the command line."""
+"""`python -m leaguegrid` runs the same program as the `leaguegrid` command."""
 
 import sys
 
-from leaguegrid.cli import main
+from leaguegrid.launch import main
 
 if __name__ == "__main__":
     sys.exit(main())

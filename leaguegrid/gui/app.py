@@ -31,15 +31,12 @@ def run(path: str | None = None, *, checked: bool = False) -> int:
     if not checked and ensure_window_can_start() != 0:
         return 1
     app = create_application()
-    from leaguegrid.gui import bridge, icons
+    from leaguegrid.app.demos import default_demo
+    from leaguegrid.gui import icons
     from leaguegrid.gui.main_window import MainWindow
 
     app.setWindowIcon(icons.app_icon())
     window = MainWindow()
     window.show()
-    if path is None:
-        demos = bridge.demo_leagues()
-        path = str(demos[0]) if demos else None
-    if path:
-        window.open_path(path)
+    window.open_path(path if path is not None else str(default_demo()))
     return int(app.exec())

@@ -4,8 +4,8 @@ from __future__ import annotations
 
 from PySide6.QtGui import QUndoCommand
 
+from leaguegrid.core.model import Reason
 from leaguegrid.gui.document import LeagueDocument
-from leaguegrid.model import Reason
 
 _MISSING = object()
 

@@ -14,7 +14,7 @@ from PySide6.QtCore import QPointF, QRectF, QSize, Qt
 from PySide6.QtGui import QFontMetricsF, QPainter, QPainterPath, QPalette, QPen
 from PySide6.QtWidgets import QSizePolicy, QWidget
 
-from leaguegrid.gui import numbers
+from leaguegrid.core import wording as numbers
 
 
 @dataclass

@@ -18,7 +18,7 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from leaguegrid.gui import numbers
+from leaguegrid.core import wording as numbers
 from leaguegrid.gui.count_plot import CountPlot, PlotPoint
 from leaguegrid.gui.tables import row_table
 

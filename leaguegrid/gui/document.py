@@ -13,7 +13,7 @@ from typing import Any
 from PySide6.QtCore import QObject, Signal
 from PySide6.QtGui import QUndoStack
 
-from leaguegrid.model import League, LoadResult, Reason, Schedule, Split, Tie
+from leaguegrid.core.model import League, LoadResult, Reason, Schedule, Split, Tie
 
 ADDED_REASON = "added in the window"
 

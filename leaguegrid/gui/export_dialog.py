@@ -20,8 +20,8 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from leaguegrid.gui import bridge
-from leaguegrid.model import League, Schedule
+from leaguegrid.app import bridge
+from leaguegrid.core.model import League, Schedule
 
 PRIVACY = ("Clash reasons (which may name families or coaches) stay out of every club-facing "
            "file: the calendar's team, venue and club sheets, the iCalendar files and the CSV "

@@ -20,7 +20,7 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from leaguegrid.model import Problem
+from leaguegrid.core.model import Problem
 
 
 def column_letter(index: int) -> str:

@@ -25,7 +25,8 @@ from PySide6.QtWidgets import (
 )
 
 from leaguegrid import __version__
-from leaguegrid.gui import bridge, commands, icons, procworker, project
+from leaguegrid.app import bridge
+from leaguegrid.gui import commands, icons, procworker, project
 from leaguegrid.gui.clash_view import ClashGraphView
 from leaguegrid.gui.counts_view import CountsView
 from leaguegrid.gui.document import LeagueDocument

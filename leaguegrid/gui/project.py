@@ -13,9 +13,9 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
-from leaguegrid.gui import bridge
+from leaguegrid.app import bridge
+from leaguegrid.core.model import Reason, Schedule
 from leaguegrid.gui.document import Edits, LeagueDocument
-from leaguegrid.model import Reason, Schedule
 
 FORMAT = "leaguegrid-project"
 VERSION = 1

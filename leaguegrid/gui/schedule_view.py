@@ -16,7 +16,8 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from leaguegrid.gui import bridge, palette
+from leaguegrid.app import bridge
+from leaguegrid.gui import palette
 from leaguegrid.gui.document import LeagueDocument
 from leaguegrid.gui.pickers import ask_round, pick_tie_partner
 

@@ -17,7 +17,7 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from leaguegrid.gui import numbers
+from leaguegrid.core import wording as numbers
 from leaguegrid.gui.document import LeagueDocument
 from leaguegrid.gui.pickers import pick_clash_partner, pick_pair
 from leaguegrid.gui.tables import row_table

@@ -8,7 +8,7 @@ from pathlib import Path
 import pytest
 from openpyxl import Workbook
 
-from leaguegrid.cli import main
+from leaguegrid.launch import main
 
 DEMO = Path(__file__).resolve().parents[2] / "demo_leagues"
 

@@ -7,7 +7,7 @@ import math
 
 import pytest
 
-from leaguegrid.cli import main
+from leaguegrid.cli.main import main
 
 
 def test_count_six_team_round_robin_matches_one_factorizations(cli, round_robin) -> None:

@@ -10,7 +10,7 @@ import pytest
 import sympy
 from openpyxl import load_workbook
 
-from leaguegrid.cli import main
+from leaguegrid.cli.main import main
 
 
 def test_plan_six_team_round_robin_is_a_valid_schedule(cli, round_robin, tmp_path) -> None:
@@ -131,7 +131,7 @@ def test_missing_arguments_exit_2(argv: list[str]) -> None:
 
 
 def test_demo_path_exists() -> None:
-    from leaguegrid.cli import demo_path
+    from leaguegrid.app.demos import default_demo as demo_path
 
     assert Path(demo_path()).is_file()
 

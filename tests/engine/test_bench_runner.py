@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import networkx as nx
 
-from leaguegrid.bench import run_one
+from benchmarks.bench import run_one
 from leaguegrid.engine import frontier
 
 

@@ -5,7 +5,7 @@ from __future__ import annotations
 import networkx as nx
 import pytest
 
-from leaguegrid.bench import cancel_latency
+from benchmarks.bench import cancel_latency
 from leaguegrid.engine import (
     BudgetExceeded,
     Hooks,

@@ -7,7 +7,7 @@ import random
 import networkx as nx
 import pytest
 
-from leaguegrid.bench import cancel_latency
+from benchmarks.bench import cancel_latency
 from leaguegrid.engine import (
     chromatic_polynomial,
     count_assignments,

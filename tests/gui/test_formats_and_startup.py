@@ -9,8 +9,10 @@ import sys  # noqa: E402
 
 import pytest  # noqa: E402
 
+from leaguegrid.app import bridge
+from leaguegrid.core import wording as numbers
 from leaguegrid.engine import Estimate  # noqa: E402
-from leaguegrid.gui import bridge, numbers, startup  # noqa: E402
+from leaguegrid.gui import startup  # noqa: E402
 
 
 def test_exact_counts_are_grouped_and_huge_ones_get_a_short_form():

@@ -11,7 +11,7 @@ import pytest  # noqa: E402
 from PySide6.QtWidgets import QMessageBox  # noqa: E402
 
 from leaguegrid.gui import app  # noqa: E402
-from leaguegrid.io.calendar_xlsx import CAUTION  # noqa: E402
+from leaguegrid.io.write.calendar_xlsx import CAUTION  # noqa: E402
 
 SEASON = Path(__file__).resolve().parents[2] / "demo_leagues" / "season.xlsx"
 

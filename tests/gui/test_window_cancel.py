@@ -12,7 +12,7 @@ os.environ["QT_QPA_PLATFORM"] = "offscreen"
 import time  # noqa: E402
 from pathlib import Path  # noqa: E402
 
-from leaguegrid.gui.latency import LatencyProbe  # noqa: E402
+from benchmarks.latency import LatencyProbe  # noqa: E402
 
 BIG = Path(__file__).resolve().parents[2] / "demo_leagues" / "bigseason.xlsx"
 

@@ -14,9 +14,9 @@ from openpyxl import load_workbook  # noqa: E402
 from PySide6.QtWidgets import QFileDialog, QInputDialog  # noqa: E402
 
 from leaguegrid import engine  # noqa: E402
-from leaguegrid.clashgraph import build_clash_graph, without_reasons  # noqa: E402
+from leaguegrid.clashes.graph import build_clash_graph, without_reasons  # noqa: E402
 from leaguegrid.gui import mapping_dialog  # noqa: E402
-from leaguegrid.io.league_reader import load_league  # noqa: E402
+from leaguegrid.io.read.league_reader import load_league  # noqa: E402
 
 SMALL = Path(__file__).resolve().parents[2] / "demo_leagues" / "small.xlsx"
 

@@ -16,11 +16,11 @@ from openpyxl import load_workbook  # noqa: E402
 from PySide6.QtWidgets import QFileDialog  # noqa: E402
 
 from leaguegrid import engine  # noqa: E402
-from leaguegrid.clashgraph import build_clash_graph  # noqa: E402
+from leaguegrid.clashes.graph import build_clash_graph  # noqa: E402
 from leaguegrid.gui import export_dialog  # noqa: E402
-from leaguegrid.io.league_reader import load_league  # noqa: E402
-from leaguegrid.schedule.check import check_schedule  # noqa: E402
-from leaguegrid.schedule.constraints import build_model, with_splits  # noqa: E402
+from leaguegrid.io.read.league_reader import load_league  # noqa: E402
+from leaguegrid.scheduling.check import check_schedule  # noqa: E402
+from leaguegrid.scheduling.constraints import build_model, with_splits  # noqa: E402
 
 DEMOS = Path(__file__).resolve().parents[2] / "demo_leagues"
 # bigseason.xlsx (90 fixtures, counts only as estimates) is opened by the cancel test instead.

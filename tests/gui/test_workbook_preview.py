@@ -8,8 +8,8 @@ os.environ["QT_QPA_PLATFORM"] = "offscreen"
 
 from openpyxl import Workbook  # noqa: E402
 
-from leaguegrid.clashgraph import build_clash_graph  # noqa: E402
-from leaguegrid.gui import bridge  # noqa: E402
+from leaguegrid.app import bridge  # noqa: E402
+from leaguegrid.clashes.graph import build_clash_graph  # noqa: E402
 from leaguegrid.gui.import_view import ImportView  # noqa: E402
 
 MATCHING = {"Home": "Home team", "Away": "Away team", "Venue": "Ground", "Shared": "Referee"}

@@ -8,7 +8,7 @@ import stat
 
 import pytest
 
-from leaguegrid.io.atomic import InputOverwriteError, atomic_write, refuse_overwriting_input
+from leaguegrid.io.write.atomic import InputOverwriteError, atomic_write, refuse_overwriting_input
 
 
 class Boom(Exception):

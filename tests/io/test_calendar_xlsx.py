@@ -13,15 +13,15 @@ from pathlib import Path
 import openpyxl
 import pytest
 
-from leaguegrid.io.atomic import InputOverwriteError
-from leaguegrid.io.calendar_xlsx import (
+from leaguegrid.core.model import ClashRow, Fixture, League, RoundInfo, Schedule, Settings, Team
+from leaguegrid.io.write.atomic import InputOverwriteError
+from leaguegrid.io.write.calendar_xlsx import (
     CAUTION,
     CalendarSummary,
     build_calendar_workbook,
     sheet_title,
     write_calendar_xlsx,
 )
-from leaguegrid.model import ClashRow, Fixture, League, RoundInfo, Schedule, Settings, Team
 
 REASONS = ("Family of Ilse B. (two children)", "Coach Tomas R. runs both sides")
 TEAMS = {
@@ -307,7 +307,8 @@ DEMO_ROUNDS = {"small.xlsx": 4, "clubday.xlsx": 6, "season.xlsx": 6, "schedules.
 
 
 def load_make_demos():
-    spec = importlib.util.spec_from_file_location("make_demos", DEMO_DIR / "make_demos.py")
+    script = DEMO_DIR.parent / "scripts" / "make_demos.py"
+    spec = importlib.util.spec_from_file_location("make_demos", script)
     module = importlib.util.module_from_spec(spec)
     spec.loader.exec_module(module)
     return module
@@ -335,9 +336,9 @@ def test_demo_files_match_their_generator():
 
 
 def planned_demo(name: str):
-    from leaguegrid.clashgraph import build_clash_graph
-    from leaguegrid.io.league_reader import load_league
-    from leaguegrid.schedule.draw import plan
+    from leaguegrid.clashes.graph import build_clash_graph
+    from leaguegrid.io.read.league_reader import load_league
+    from leaguegrid.scheduling.draw import plan
 
     result = load_league(DEMO_DIR / name)
     assert result.ok, [str(p) for p in result.problems]

@@ -8,9 +8,9 @@ import datetime as dt
 
 import pytest
 
-from leaguegrid.io.atomic import InputOverwriteError
-from leaguegrid.io.csv_out import protect_text, write_schedule_csv
-from leaguegrid.model import Fixture, League, RoundInfo, Schedule, Settings
+from leaguegrid.core.model import Fixture, League, RoundInfo, Schedule, Settings
+from leaguegrid.io.write.atomic import InputOverwriteError
+from leaguegrid.io.write.csv_out import protect_text, write_schedule_csv
 
 
 def league_and_schedule(source: str = "") -> tuple[League, Schedule]:
@@ -125,9 +125,9 @@ def test_never_overwrites_the_input(tmp_path):
 def test_demo_league_round_trip(tmp_path):
     from pathlib import Path
 
-    from leaguegrid.clashgraph import build_clash_graph
-    from leaguegrid.io.league_reader import load_league
-    from leaguegrid.schedule.draw import plan
+    from leaguegrid.clashes.graph import build_clash_graph
+    from leaguegrid.io.read.league_reader import load_league
+    from leaguegrid.scheduling.draw import plan
 
     demo = Path(__file__).resolve().parents[2] / "demo_leagues" / "clubday.xlsx"
     league = load_league(demo).league

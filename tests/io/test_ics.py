@@ -12,10 +12,10 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from leaguegrid.io.atomic import InputOverwriteError
-from leaguegrid.io.calendar_xlsx import CAUTION
-from leaguegrid.io.ics import IcsError, escape_text, fixture_uids, fold_line, write_ics_files
-from leaguegrid.model import ClashRow, Fixture, League, RoundInfo, Schedule, Settings, Team
+from leaguegrid.core.model import ClashRow, Fixture, League, RoundInfo, Schedule, Settings, Team
+from leaguegrid.io.write.atomic import InputOverwriteError
+from leaguegrid.io.write.calendar_xlsx import CAUTION
+from leaguegrid.io.write.ics import IcsError, escape_text, fixture_uids, fold_line, write_ics_files
 
 NOW = dt.datetime(2025, 8, 1, 12, 0, tzinfo=dt.UTC)
 LATER = dt.datetime(2025, 8, 2, 9, 30, tzinfo=dt.UTC)
@@ -354,9 +354,9 @@ DEMO_DIR = Path(__file__).resolve().parents[2] / "demo_leagues"
 
 @pytest.mark.parametrize(("name", "rounds"), [("clubday.xlsx", 6), ("season.xlsx", 6)])
 def test_demo_league_calendars(tmp_path, name, rounds):
-    from leaguegrid.clashgraph import build_clash_graph
-    from leaguegrid.io.league_reader import load_league
-    from leaguegrid.schedule.draw import plan
+    from leaguegrid.clashes.graph import build_clash_graph
+    from leaguegrid.io.read.league_reader import load_league
+    from leaguegrid.scheduling.draw import plan
 
     league = load_league(DEMO_DIR / name).league
     graph = build_clash_graph(league)

@@ -16,8 +16,8 @@ import openpyxl
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from leaguegrid.io.league_reader import SHEETS, load_league
-from leaguegrid.model import LoadResult, Problem
+from leaguegrid.core.model import LoadResult, Problem
+from leaguegrid.io.read.league_reader import SHEETS, load_league
 
 DEMOS = sorted((Path(__file__).resolve().parents[2] / "demo_leagues").glob("*.xlsx"))
 FUZZ = settings(max_examples=40, deadline=None, suppress_health_check=[HealthCheck.too_slow])

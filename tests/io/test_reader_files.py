@@ -9,7 +9,7 @@ from pathlib import Path
 
 from test_reader_support import errors, load_book, one, patch_cells, write_book
 
-from leaguegrid.io.league_reader import load_league
+from leaguegrid.io.read.league_reader import load_league
 
 FIXTURES = [["Home", "Away", "Round"], ["Alder", "Birch", 1], ["Cedar", "Damson", None]]
 
@@ -214,7 +214,7 @@ def test_two_sheets_with_one_name(tmp_path):
 
 
 def test_unexpected_failure_becomes_a_problem_naming_the_file(tmp_path, monkeypatch):
-    from leaguegrid.io import league_reader
+    from leaguegrid.io.read import league_reader
 
     def broken(league):
         raise RuntimeError("boom")

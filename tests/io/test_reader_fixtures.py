@@ -7,7 +7,7 @@ import datetime as dt
 
 from test_reader_support import errors, load_book, one, warnings_of
 
-from leaguegrid.io.league_reader import load_league
+from leaguegrid.io.read.league_reader import load_league
 
 HEAD = ["Fixture", "Home", "Away", "Venue", "Division", "Round"]
 

@@ -6,7 +6,7 @@ import zipfile
 
 from test_reader_support import errors, load_book, one, warnings_of, write_book
 
-from leaguegrid.io.league_reader import load_league
+from leaguegrid.io.read.league_reader import load_league
 
 FIXTURES = [["Home", "Away", "Venue"], ["Alder", "Birch", "Oak Rd"], ["Cedar", "Damson", "Pine St"]]
 

@@ -6,8 +6,8 @@ import datetime as dt
 
 from test_reader_support import errors, load_book, one, warnings_of, write_book
 
-from leaguegrid.io.league_reader import load_league
-from leaguegrid.model import Blocked, Settings
+from leaguegrid.core.model import Blocked, Settings
+from leaguegrid.io.read.league_reader import load_league
 
 FIXTURES = [["Home", "Away", "Venue"], ["Alder", "Birch", "Oak Rd"], ["Cedar", "Damson", "Pine St"]]
 

@@ -9,8 +9,8 @@ from pathlib import Path
 
 import openpyxl
 
-from leaguegrid.io.league_reader import load_league
-from leaguegrid.model import LoadResult, Problem
+from leaguegrid.core.model import LoadResult, Problem
+from leaguegrid.io.read.league_reader import load_league
 
 Rows = list[list[object]]
 

@@ -8,7 +8,7 @@ from itertools import combinations
 
 from test_reader_support import errors, load_book, one, six_teams, warnings_of
 
-from leaguegrid.io.roundrobin import round_robin
+from leaguegrid.io.read.roundrobin import round_robin
 
 
 def test_six_teams_fifteen_fixtures_home_and_away_balanced(tmp_path):

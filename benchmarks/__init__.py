@@ -1,0 +1,1 @@
+"""Benchmarks and probes of LeagueGrid (not part of the installed package)."""

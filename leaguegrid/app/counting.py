@@ -1,0 +1,238 @@
+"""The counts a coordinator asks for, computed once for the command line and the window.
+
+For a league: the fewest rounds, the chromatic polynomial of the clash graph (factored), and for
+each round count K the exact number of assignments, of assignments that use every round, and of
+groupings. Work that does not finish within the budget is left as None or a labelled estimate.
+"""
+
+from __future__ import annotations
+
+import math
+import threading
+import time
+from collections.abc import Callable
+from dataclasses import dataclass, field
+
+import networkx as nx
+from flint import fmpz_poly
+
+from leaguegrid import engine
+from leaguegrid.core.model import League
+from leaguegrid.core.polytext import factored
+from leaguegrid.scheduling.constraints import CountingModel, build_model
+
+Number = int | engine.Estimate | None
+Progress = Callable[[float, str], None]
+RANGE_ABOVE_MIN = 4  # default table: fewest rounds up to fewest + 4
+POLYNOMIAL_SHARE = 0.5  # at most this share of the remaining budget goes to the polynomial
+ESTIMATE_SHARE = 0.2  # this share of the whole budget is kept for estimates of unfinished rows
+RETURN_HALF = ("return half: with K rounds, first legs in rounds 1..H and return fixtures in "
+               "rounds H+1..K, H = K/2 rounded up")
+
+
+@dataclass
+class CountRow:
+    """The numbers for one round count K; each an exact int, a labelled Estimate, or None."""
+
+    rounds: int
+    exact: bool = True
+    assignments: Number = None
+    all_rounds_used: Number = None
+    groupings: Number = None
+
+
+@dataclass
+class CountReport:
+    """Everything the count command prints and the window's counts view shows."""
+
+    fixtures: int
+    clashes: int
+    pinned: bool
+    min_rounds: int | None
+    min_rounds_bounds: tuple[int, int]
+    polynomial: fmpz_poly | None = None
+    rows: list[CountRow] = field(default_factory=list)
+    complete: bool = True  # False when the budget ran out or the work was cancelled
+    cancelled: bool = False
+    notes: list[str] = field(default_factory=list)  # e.g. pins or ties that contradict clashes
+    rules_counted: list[str] = field(default_factory=list)  # in words: what the counts include
+    rules_generator: list[str] = field(default_factory=list)  # enforced by the generator only
+
+    @property
+    def polynomial_text(self) -> str | None:
+        """The polynomial in k, factored where it factors."""
+        return None if self.polynomial is None else factored(self.polynomial)
+
+
+class _Stop(Exception):
+    """Raised inside this module when the whole computation was cancelled."""
+
+
+class _Clock:
+    """One budget for the whole computation, handed to each engine call as the time left."""
+
+    def __init__(self, budget: float | None, progress: Progress | None,
+                 cancel: threading.Event | None) -> None:
+        self.deadline = None if budget is None else time.monotonic() + budget
+        self.progress = progress
+        self.cancel = cancel
+        self.estimate_seconds: float | None = None  # kept apart for estimates, all rows together
+
+    def remaining(self) -> float | None:
+        return None if self.deadline is None else max(0.0, self.deadline - time.monotonic())
+
+    def hooks(self, stage: str, start: float, span: float, share: float = 1.0) -> engine.Hooks:
+        """Hooks for one step, its progress mapped into [start, start + span] of the whole."""
+        left = self.remaining()
+
+        def report(fraction: float, text: str) -> None:
+            if self.progress is not None:
+                done = start + span * min(max(fraction, 0.0), 1.0)
+                self.progress(done, f"{stage}: {text}" if text else stage)
+
+        return engine.Hooks(progress=report, cancel=self.cancel,
+                            budget=None if left is None else left * share)
+
+    def run(self, func: Callable[[], object]) -> object | None:
+        """Run one engine step: None when it hit the budget; _Stop when cancelled."""
+        try:
+            return func()
+        except engine.BudgetExceeded:
+            return None
+        except engine.Cancelled as stop:
+            raise _Stop from stop
+
+
+def default_rounds(min_rounds: int, limit: int | None) -> list[int]:
+    """The default range: the fewest rounds up to fewest + 4, stopping at a Rounds sheet's end."""
+    top = min_rounds + RANGE_ABOVE_MIN
+    if limit is not None:
+        top = min(top, limit)
+    return list(range(max(min_rounds, 1), top + 1))
+
+
+def count_report(
+    league: League,
+    graph: nx.Graph,
+    rounds: list[int] | None = None,
+    budget: float | None = None,
+    progress: Progress | None = None,
+    cancel: threading.Event | None = None,
+    estimate: bool = True,
+) -> CountReport:
+    """The counts table of a league and its clash graph (build_clash_graph), within a budget.
+
+    Assignments and every-round-used follow the counting model (pins, played fixtures, ties,
+    splits, blocked rounds, return half: schedule.constraints); the polynomial and groupings are
+    of the clash graph with its splits. `rounds` None means the default range, which stops at a
+    Rounds sheet's last round. Exact numbers are ints; what the budget cuts short is None, or an
+    engine.Estimate when `estimate` is set (always labelled, never shown as exact).
+    """
+    exact_budget = None if budget is None or not estimate else budget * (1 - ESTIMATE_SHARE)
+    clock = _Clock(budget if exact_budget is None else exact_budget, progress, cancel)
+    clock.estimate_seconds = None if budget is None else budget * ESTIMATE_SHARE
+    top = max(rounds) if rounds else graph.number_of_nodes() or 1
+    base = build_model(league, graph, max(top, 1))
+    ties = base.graph.number_of_nodes() != base.clashes.number_of_nodes()
+    constrained = bool(base.pins or base.exclusions or ties)
+    report = CountReport(
+        fixtures=base.clashes.number_of_nodes(),
+        clashes=base.clashes.number_of_edges(),
+        pinned=constrained,
+        min_rounds=None,
+        min_rounds_bounds=_bounds(base),
+        notes=list(base.contradictions),
+        rules_counted=[RETURN_HALF if rule.startswith("return half") else rule
+                       for rule in base.rules_counted],
+        rules_generator=list(base.rules_generator),
+    )
+    try:
+        found = clock.run(lambda: base.fewest_rounds(clock.hooks("fewest rounds", 0.0, 0.2)))
+        if found is not None:
+            report.min_rounds = int(found)
+            report.min_rounds_bounds = (report.min_rounds, report.min_rounds)
+        if rounds is None:
+            limit = len(league.rounds) if league.rounds_fixed else None
+            rounds = default_rounds(report.min_rounds_bounds[0], limit)
+        report.rows = [CountRow(rounds=k) for k in rounds]
+        report.polynomial = clock.run(lambda: engine.chromatic_polynomial(
+            base.clashes, hooks=clock.hooks("polynomial", 0.2, 0.3, POLYNOMIAL_SHARE)))
+        _fill_rows(report, base, clock, estimate)
+    except _Stop:
+        report.cancelled = True
+    report.complete = not report.cancelled and report.min_rounds is not None and all(
+        row.exact for row in report.rows)
+    return report
+
+
+def _bounds(model: CountingModel) -> tuple[int, int]:
+    """Proven bounds on the fewest rounds (a clique below, a schedule found above)."""
+    if model.contradictions:
+        return (0, 0)
+    return engine.min_rounds_bounds(model.graph, pins=model.pins, exclusions=model.exclusions)
+
+
+def _fill_rows(report: CountReport, base: CountingModel, clock: _Clock, estimate: bool) -> None:
+    """Each row's numbers: from the polynomial when nothing but clashes constrains the league,
+    else from the counting model at K; labelled estimates where exact work ran out of budget."""
+    groups = engine.to_falling(report.polynomial) if report.polynomial is not None else None
+    n = max(len(report.rows), 1)
+    for i, row in enumerate(report.rows):
+        k = row.rounds
+        if report.min_rounds is not None and k < report.min_rounds:
+            row.assignments = row.all_rounds_used = 0
+            row.groupings = groups[k] if groups is not None and k < len(groups) else 0
+            continue
+        if groups is not None:
+            row.groupings = groups[k] if k < len(groups) else 0
+            if not report.pinned:
+                row.assignments = int(report.polynomial(k))
+                row.all_rounds_used = row.groupings * math.factorial(k)
+                continue
+        model = base.at(k)
+        start = 0.5 + 0.5 * i / n
+        row.assignments = clock.run(lambda m=model, s=start, k=k: m.count(
+            clock.hooks(f"{k} rounds", s, 0.25 / n)))
+        row.all_rounds_used = clock.run(lambda m=model, s=start, k=k: m.count_all_rounds_used(
+            clock.hooks(f"{k} rounds, every round used", s + 0.25 / n, 0.25 / n)))
+        if row.groupings is None:
+            row.groupings = _groupings_at(report, base, k, row, clock, start)
+        row.exact = None not in (row.assignments, row.all_rounds_used, row.groupings)
+        if not row.exact and estimate and row.assignments is None:
+            _estimate_row(report, row, model, clock, n)
+
+
+def _estimate_row(report: CountReport, row: CountRow, model: CountingModel, clock: _Clock,
+                  n: int) -> None:
+    """Labelled estimates for the numbers of a row that exact work did not finish: the
+    assignments and every-round-used from the same draws, and (when nothing but clashes
+    constrains the league, so that they describe the same graph) groupings as
+    every-round-used / K!."""
+    k = row.rounds
+    share = None if clock.estimate_seconds is None else clock.estimate_seconds / n
+    hooks = engine.Hooks(cancel=clock.cancel, budget=share)
+    got = clock.run(lambda: engine.estimate_counts(
+        model.graph, k, pins=model.pins, exclusions=model.exclusions, hooks=hooks))
+    if got is None:
+        return
+    row.assignments, every = got
+    if row.all_rounds_used is None:
+        row.all_rounds_used = every
+    if row.groupings is None and not report.pinned:
+        f = math.factorial(k)
+        low = -(-every.low // f)  # groupings are whole: at least ceil(low / K!), 1 if low >= 1
+        row.groupings = engine.Estimate((2 * every.value + f) // (2 * f), low,
+                                        -(-every.high // f),
+                                        f"{every.method}, every round used / {k}!")
+
+
+def _groupings_at(report: CountReport, base: CountingModel, k: int, row: CountRow,
+                  clock: _Clock, start: float) -> int | None:
+    """Groupings of the clash graph into exactly K rounds without the polynomial:
+    every-round-used of the unconstrained graph divided by K!."""
+    if report.pinned:
+        unconstrained = clock.run(lambda: engine.count_all_rounds_used(
+            base.clashes, k, hooks=clock.hooks(f"{k} rounds, groupings", start, 0.0)))
+    else:
+        unconstrained = row.all_rounds_used
+    return None if unconstrained is None else unconstrained // math.factorial(k)

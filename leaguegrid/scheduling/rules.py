@@ -1,0 +1,334 @@
+"""Rules the clash graph cannot express, enforced by the schedule generator only.
+
+- venue capacity: a venue of the Venues sheet with Pitches N > 1, where some fixture gives no
+  pitch (no Pitch column), hosts at most N fixtures a round; the clash graph has no venue
+  edges there (a fixture that names a pitch still clashes with that pitch's fixtures);
+- max home run / max away run: a team's fixtures in round order (its Home/Away column) hold no
+  more than that many home (away) fixtures in a row; a round without a fixture for the team (a
+  bye) neither breaks nor extends a run;
+- round balance: over all K rounds, empty ones included, the fullest and emptiest round differ
+  by at most that many fixtures.
+Each rule checks a complete schedule, and `prove_impossible` finds the cases where counting
+alone proves that no schedule can meet it, naming where it bites.
+"""
+
+from __future__ import annotations
+
+from collections import defaultdict
+from dataclasses import dataclass
+
+from leaguegrid.core.model import League
+
+
+def norm(name: str | None) -> str:
+    """Case- and space-insensitive key for team and venue names."""
+    return " ".join((name or "").split()).casefold()
+
+
+@dataclass(frozen=True)
+class Violation:
+    """One broken clash or rule in a schedule, in words, with the fixtures and rounds involved."""
+
+    rule: str  # clash, split, tie, pin, played, blocked, return half, capacity, home run,
+    # away run, balance, rounds, missing
+    message: str
+    fixtures: tuple[str, ...] = ()
+    rounds: tuple[int, ...] = ()
+
+    def __str__(self) -> str:
+        return self.message
+
+
+@dataclass(frozen=True)
+class Capacity:
+    """A venue with several pitches where some fixture names no pitch: at most `pitches`
+    fixtures there a round (fixtures with a pitch count too; they also clash per pitch)."""
+
+    venue: str
+    pitches: int
+    fixtures: tuple[str, ...]
+
+
+@dataclass(frozen=True)
+class GeneratorRules:
+    """The generator-only rules that are active for a league."""
+
+    capacities: tuple[Capacity, ...] = ()
+    max_home_run: int | None = None
+    max_away_run: int | None = None
+    round_balance: int | None = None
+
+    @property
+    def names(self) -> list[str]:
+        """Short names of the active rules: capacity, home run, away run, balance."""
+        out = []
+        if self.capacities:
+            out.append("capacity")
+        if self.max_home_run is not None:
+            out.append("home run")
+        if self.max_away_run is not None:
+            out.append("away run")
+        if self.round_balance is not None:
+            out.append("balance")
+        return out
+
+    @staticmethod
+    def title(name: str) -> str:
+        """The rule's name as a coordinator reads it: "capacity" -> "venue capacity"."""
+        return {"capacity": "venue capacity", "home run": "max home run",
+                "away run": "max away run", "balance": "round balance"}[name]
+
+    @property
+    def active(self) -> bool:
+        return bool(self.names)
+
+    def only(self, name: str) -> GeneratorRules:
+        """These rules with every rule but `name` dropped."""
+        return GeneratorRules(
+            capacities=self.capacities if name == "capacity" else (),
+            max_home_run=self.max_home_run if name == "home run" else None,
+            max_away_run=self.max_away_run if name == "away run" else None,
+            round_balance=self.round_balance if name == "balance" else None,
+        )
+
+    def describe(self) -> list[str]:
+        """Each active rule in plain words."""
+        out = [
+            f"venue capacity: {c.venue} hosts at most {c.pitches} fixtures a round "
+            f"({c.pitches} pitches)"
+            for c in self.capacities
+        ]
+        if self.max_home_run is not None:
+            out.append(
+                f"max home run: no team plays more than {self.max_home_run} home fixtures in a row"
+            )
+        if self.max_away_run is not None:
+            out.append(
+                f"max away run: no team plays more than {self.max_away_run} away fixtures in a row"
+            )
+        if self.round_balance is not None:
+            out.append(
+                f"round balance: fixtures per round differ by at most {self.round_balance}"
+            )
+        return out
+
+
+def generator_rules(league: League) -> GeneratorRules:
+    """The generator-only rules a league's Venues sheet and Settings ask for."""
+    s = league.settings
+    shared = {norm(c) for c in s.shared}
+    caps: list[Capacity] = []
+    if "venue" in shared:
+        for venue in league.venues.values():
+            if venue.pitches <= 1:
+                continue
+            at = [f for f in league.fixtures if norm(f.venue) == norm(venue.name)]
+            if at and not all(f.pitch for f in at):
+                caps.append(Capacity(venue.name, venue.pitches, tuple(f.label for f in at)))
+    return GeneratorRules(
+        capacities=tuple(caps),
+        max_home_run=s.max_home_run,
+        max_away_run=s.max_away_run,
+        round_balance=s.round_balance,
+    )
+
+
+def team_sides(league: League) -> dict[str, list[tuple[str, str]]]:
+    """Team -> its fixtures as (label, "home" | "away"), in league order."""
+    out: dict[str, list[tuple[str, str]]] = defaultdict(list)
+    for f in league.fixtures:
+        if f.home:
+            out[f.home].append((f.label, "home"))
+        if f.away:
+            out[f.away].append((f.label, "away"))
+    return dict(out)
+
+
+def _rounds_text(rounds: list[int]) -> str:
+    return ", ".join(str(r) for r in rounds)
+
+
+def check_capacity(rules: GeneratorRules, assignment: dict[str, int]) -> list[Violation]:
+    """Rounds in which a venue holds more fixtures than it has pitches."""
+    out = []
+    for cap in rules.capacities:
+        by_round: dict[int, list[str]] = defaultdict(list)
+        for label in cap.fixtures:
+            if label in assignment:
+                by_round[assignment[label]].append(label)
+        for r in sorted(by_round):
+            held = by_round[r]
+            if len(held) > cap.pitches:
+                out.append(
+                    Violation(
+                        "capacity",
+                        f"venue {cap.venue} holds {len(held)} fixtures in round {r} but has "
+                        f"{cap.pitches} pitches: {', '.join(held)}",
+                        tuple(held),
+                        (r,),
+                    )
+                )
+    return out
+
+
+def side_runs(
+    sides: list[tuple[str, str]], assignment: dict[str, int]
+) -> list[tuple[str, list[tuple[int, str]]]]:
+    """A team's maximal runs of same-side fixtures in round order, as (side, [(round, label)])."""
+    placed = sorted((assignment[lab], lab, side) for lab, side in sides if lab in assignment)
+    runs: list[tuple[str, list[tuple[int, str]]]] = []
+    for r, lab, side in placed:
+        if runs and runs[-1][0] == side:
+            runs[-1][1].append((r, lab))
+        else:
+            runs.append((side, [(r, lab)]))
+    return runs
+
+
+def check_runs(
+    league: League, rules: GeneratorRules, assignment: dict[str, int]
+) -> list[Violation]:
+    """Teams playing more home (or away) fixtures in a row than the settings allow."""
+    limits = {"home": rules.max_home_run, "away": rules.max_away_run}
+    if limits["home"] is None and limits["away"] is None:
+        return []
+    out = []
+    for team, sides in team_sides(league).items():
+        for side, run in side_runs(sides, assignment):
+            limit = limits[side]
+            if limit is not None and len(run) > limit:
+                rounds = [r for r, _ in run]
+                out.append(
+                    Violation(
+                        f"{side} run",
+                        f"team {team} plays {len(run)} {side} fixtures in a row (rounds "
+                        f"{_rounds_text(rounds)}); Max {side} run is {limit}",
+                        tuple(lab for _, lab in run),
+                        tuple(rounds),
+                    )
+                )
+    return out
+
+
+def check_balance(
+    rules: GeneratorRules, assignment: dict[str, int], rounds: int
+) -> list[Violation]:
+    """Fixtures per round (all rounds 1..K, empty ones too) differing by more than allowed."""
+    if rules.round_balance is None or rounds < 1:
+        return []
+    per = dict.fromkeys(range(1, rounds + 1), 0)
+    for r in assignment.values():
+        if r in per:
+            per[r] += 1
+    hi, lo = max(per.values()), min(per.values())
+    if hi - lo <= rules.round_balance:
+        return []
+    r_hi = min(r for r, c in per.items() if c == hi)
+    r_lo = min(r for r, c in per.items() if c == lo)
+    return [
+        Violation(
+            "balance",
+            f"rounds hold {lo} to {hi} fixtures (round {r_hi}: {hi}, round {r_lo}: {lo}); "
+            f"Round balance allows a difference of {rules.round_balance}",
+            (),
+            (r_hi, r_lo),
+        )
+    ]
+
+
+def check_generator(
+    league: League, rules: GeneratorRules, assignment: dict[str, int], rounds: int
+) -> list[Violation]:
+    """Every generator-only rule that a complete schedule breaks."""
+    return (
+        check_capacity(rules, assignment)
+        + check_runs(league, rules, assignment)
+        + check_balance(rules, assignment, rounds)
+    )
+
+
+def balance_bounds(fixtures: int, rounds: int, balance: int) -> tuple[int, int]:
+    """(fewest, most) fixtures any round can hold under Round balance.
+
+    The final most-filled round holds at least ceil(n/K) and the least-filled at most
+    floor(n/K), so every round holds between ceil(n/K) - B and floor(n/K) + B."""
+    low = max(0, -(-fixtures // rounds) - balance)
+    return low, fixtures // rounds + balance
+
+
+def _hall_windows(
+    items: list[tuple[str, set[int]]], per_round: int, rounds: int
+) -> tuple[int, int, list[str]] | None:
+    """The first window of rounds a..b that must hold more items than per_round x (b-a+1)."""
+    for a in range(1, rounds + 1):
+        for b in range(a, rounds + 1):
+            inside = [lab for lab, dom in items if dom and min(dom) >= a and max(dom) <= b]
+            if len(inside) > per_round * (b - a + 1):
+                return a, b, inside
+    return None
+
+
+def _span(a: int, b: int) -> str:
+    return f"round {a}" if a == b else f"rounds {a}..{b}"
+
+
+def prove_impossible(
+    league: League, rules: GeneratorRules, domains: dict[str, set[int]], rounds: int
+) -> list[str]:
+    """Proofs by counting that no schedule meets a rule, each naming the rule and where.
+
+    `domains` gives each fixture's allowed rounds (pins, blocked rounds, return half)."""
+    out: list[str] = []
+    for cap in rules.capacities:
+        items = [(lab, domains[lab]) for lab in cap.fixtures]
+        hit = _hall_windows(items, cap.pitches, rounds)
+        if hit:
+            a, b, inside = hit
+            out.append(
+                f"venue capacity: venue {cap.venue} has {cap.pitches} pitches but "
+                f"{_span(a, b)} must hold {len(inside)} of its fixtures"
+            )
+    sides_of = team_sides(league)
+    for side, limit in (("home", rules.max_home_run), ("away", rules.max_away_run)):
+        if limit is None:
+            continue
+        for team, sides in sides_of.items():
+            mine = sum(1 for _, s in sides if s == side)
+            other = len(sides) - mine
+            if mine > (other + 1) * limit:
+                out.append(
+                    f"max {side} run: team {team} has {mine} {side} fixtures and {other} "
+                    f"{'away' if side == 'home' else 'home'}, so some run of {side} fixtures "
+                    f"is longer than {limit}"
+                )
+    if rules.round_balance is not None:
+        out.extend(_prove_balance(rules.round_balance, domains, rounds))
+    return out
+
+
+def _prove_balance(balance: int, domains: dict[str, set[int]], rounds: int) -> list[str]:
+    n = len(domains)
+    low, high = balance_bounds(n, rounds, balance)
+    if high * rounds < n:
+        return [
+            f"round balance: with a difference of at most {balance}, {n} fixtures cannot be "
+            f"spread over {rounds} rounds (at most {high} a round)"
+        ]
+    out = []
+    hit = _hall_windows(list(domains.items()), high, rounds)
+    if hit:
+        a, b, inside = hit
+        out.append(
+            f"round balance: at most {high} fixtures a round are allowed ({n} fixtures over "
+            f"{rounds} rounds, difference {balance}), but {_span(a, b)} must hold {len(inside)}"
+        )
+    for r in range(1, rounds + 1):
+        can = sum(1 for dom in domains.values() if r in dom)
+        if can < low:
+            out.append(
+                f"round balance: round {r} must hold at least {low} fixtures ({n} fixtures over "
+                f"{rounds} rounds, difference {balance}), but only {can} may go there"
+            )
+            break
+    return out
+
