@@ -1,4 +1,4 @@
-"""How counts read on screen: exact integers with digit grouping, a short scientific form
+"""User-facing number formats and wording: exact integers with digit grouping, a short scientific form
 for huge ones, and estimates always labelled as estimates."""
 
 from __future__ import annotations
@@ -98,3 +98,8 @@ def log10_range(value: Any) -> tuple[float, float] | None:
 def _log10_int(n: int) -> float:
     """log10 of a positive integer of any size (math.log10 handles big ints exactly enough)."""
     return math.log10(n)
+
+
+def plural(n: int, one: str, many: str | None = None) -> str:
+    """'1 round', '2 rounds', '3 clashes' (with `many` given): never 'round(s)'."""
+    return f"{n} {one if n == 1 else (many or one + 's')}"
