@@ -1,5 +1,5 @@
-"""User-facing number formats and wording: exact integers with digit grouping, a short scientific form
-for huge ones, and estimates always labelled as estimates."""
+"""User-facing number formats and wording: exact integers with digit grouping, a short
+scientific form for huge ones, estimates always labelled as estimates, plurals."""
 
 from __future__ import annotations
 
