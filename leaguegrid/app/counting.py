@@ -8,8 +8,6 @@ groupings. Work that does not finish within the budget is left as None or a labe
 from __future__ import annotations
 
 import math
-import threading
-import time
 from collections.abc import Callable
 from dataclasses import dataclass, field
 
@@ -17,6 +15,8 @@ import networkx as nx
 from flint import fmpz_poly
 
 from leaguegrid import engine
+from leaguegrid.app.defaults import LONG_WORK_SECONDS
+from leaguegrid.core import wording
 from leaguegrid.core.model import League
 from leaguegrid.core.polytext import factored
 from leaguegrid.scheduling.constraints import CountingModel, build_model
@@ -68,39 +68,14 @@ class _Stop(Exception):
     """Raised inside this module when the whole computation was cancelled."""
 
 
-class _Clock:
-    """One budget for the whole computation, handed to each engine call as the time left."""
-
-    def __init__(self, budget: float | None, progress: Progress | None,
-                 cancel: threading.Event | None) -> None:
-        self.deadline = None if budget is None else time.monotonic() + budget
-        self.progress = progress
-        self.cancel = cancel
-        self.estimate_seconds: float | None = None  # kept apart for estimates, all rows together
-
-    def remaining(self) -> float | None:
-        return None if self.deadline is None else max(0.0, self.deadline - time.monotonic())
-
-    def hooks(self, stage: str, start: float, span: float, share: float = 1.0) -> engine.Hooks:
-        """Hooks for one step, its progress mapped into [start, start + span] of the whole."""
-        left = self.remaining()
-
-        def report(fraction: float, text: str) -> None:
-            if self.progress is not None:
-                done = start + span * min(max(fraction, 0.0), 1.0)
-                self.progress(done, f"{stage}: {text}" if text else stage)
-
-        return engine.Hooks(progress=report, cancel=self.cancel,
-                            budget=None if left is None else left * share)
-
-    def run(self, func: Callable[[], object]) -> object | None:
-        """Run one engine step: None when it hit the budget; _Stop when cancelled."""
-        try:
-            return func()
-        except engine.BudgetExceeded:
-            return None
-        except engine.Cancelled as stop:
-            raise _Stop from stop
+def _exact(func: Callable[[], object]) -> object | None:
+    """Run one engine step: None when it hit its budget; _Stop when the job was cancelled."""
+    try:
+        return func()
+    except engine.BudgetExceeded:
+        return None
+    except engine.Cancelled as stop:
+        raise _Stop from stop
 
 
 def default_rounds(min_rounds: int, limit: int | None) -> list[int]:
@@ -115,9 +90,7 @@ def count_report(
     league: League,
     graph: nx.Graph,
     rounds: list[int] | None = None,
-    budget: float | None = None,
-    progress: Progress | None = None,
-    cancel: threading.Event | None = None,
+    hooks: engine.Hooks | None = None,
     estimate: bool = True,
 ) -> CountReport:
     """The counts table of a league and its clash graph (build_clash_graph), within a budget.
@@ -128,9 +101,10 @@ def count_report(
     Rounds sheet's last round. Exact numbers are ints; what the budget cuts short is None, or an
     engine.Estimate when `estimate` is set (always labelled, never shown as exact).
     """
-    exact_budget = None if budget is None or not estimate else budget * (1 - ESTIMATE_SHARE)
-    clock = _Clock(budget if exact_budget is None else exact_budget, progress, cancel)
-    clock.estimate_seconds = None if budget is None else budget * ESTIMATE_SHARE
+    job = hooks or engine.Hooks()
+    budget = job.remaining()
+    exact = job.part(share=1 - ESTIMATE_SHARE) if budget is not None and estimate else job
+    estimate_seconds = None if budget is None else budget * ESTIMATE_SHARE
     top = max(rounds) if rounds else graph.number_of_nodes() or 1
     base = build_model(league, graph, max(top, 1))
     ties = base.graph.number_of_nodes() != base.clashes.number_of_nodes()
@@ -147,7 +121,7 @@ def count_report(
         rules_generator=list(base.rules_generator),
     )
     try:
-        found = clock.run(lambda: base.fewest_rounds(clock.hooks("fewest rounds", 0.0, 0.2)))
+        found = _exact(lambda: base.fewest_rounds(exact.part(0.0, 0.2, stage="fewest rounds")))
         if found is not None:
             report.min_rounds = int(found)
             report.min_rounds_bounds = (report.min_rounds, report.min_rounds)
@@ -155,9 +129,9 @@ def count_report(
             limit = len(league.rounds) if league.rounds_fixed else None
             rounds = default_rounds(report.min_rounds_bounds[0], limit)
         report.rows = [CountRow(rounds=k) for k in rounds]
-        report.polynomial = clock.run(lambda: engine.chromatic_polynomial(
-            base.clashes, hooks=clock.hooks("polynomial", 0.2, 0.3, POLYNOMIAL_SHARE)))
-        _fill_rows(report, base, clock, estimate)
+        report.polynomial = _exact(lambda: engine.chromatic_polynomial(
+            base.clashes, hooks=exact.part(0.2, 0.5, share=POLYNOMIAL_SHARE, stage="polynomial")))
+        _fill_rows(report, base, exact, estimate_seconds if estimate else None, estimate)
     except _Stop:
         report.cancelled = True
     report.complete = not report.cancelled and report.min_rounds is not None and all(
@@ -172,11 +146,13 @@ def _bounds(model: CountingModel) -> tuple[int, int]:
     return engine.min_rounds_bounds(model.graph, pins=model.pins, exclusions=model.exclusions)
 
 
-def _fill_rows(report: CountReport, base: CountingModel, clock: _Clock, estimate: bool) -> None:
+def _fill_rows(report: CountReport, base: CountingModel, job: engine.Hooks,
+               estimate_seconds: float | None, estimate: bool) -> None:
     """Each row's numbers: from the polynomial when nothing but clashes constrains the league,
     else from the counting model at K; labelled estimates where exact work ran out of budget."""
     groups = engine.to_falling(report.polynomial) if report.polynomial is not None else None
     n = max(len(report.rows), 1)
+    span = 0.25 / n
     for i, row in enumerate(report.rows):
         k = row.rounds
         if report.min_rounds is not None and k < report.min_rounds:
@@ -191,27 +167,27 @@ def _fill_rows(report: CountReport, base: CountingModel, clock: _Clock, estimate
                 continue
         model = base.at(k)
         start = 0.5 + 0.5 * i / n
-        row.assignments = clock.run(lambda m=model, s=start, k=k: m.count(
-            clock.hooks(f"{k} rounds", s, 0.25 / n)))
-        row.all_rounds_used = clock.run(lambda m=model, s=start, k=k: m.count_all_rounds_used(
-            clock.hooks(f"{k} rounds, every round used", s + 0.25 / n, 0.25 / n)))
+        row.assignments = _exact(lambda m=model, s=start, k=k: m.count(
+            job.part(s, s + span, stage=f"{k} rounds")))
+        row.all_rounds_used = _exact(lambda m=model, s=start, k=k: m.count_all_rounds_used(
+            job.part(s + span, s + 2 * span, stage=f"{k} rounds, every round used")))
         if row.groupings is None:
-            row.groupings = _groupings_at(report, base, k, row, clock, start)
+            row.groupings = _groupings_at(report, base, k, row, job, start)
         row.exact = None not in (row.assignments, row.all_rounds_used, row.groupings)
         if not row.exact and estimate and row.assignments is None:
-            _estimate_row(report, row, model, clock, n)
+            _estimate_row(report, row, model, job, estimate_seconds, n)
 
 
-def _estimate_row(report: CountReport, row: CountRow, model: CountingModel, clock: _Clock,
-                  n: int) -> None:
+def _estimate_row(report: CountReport, row: CountRow, model: CountingModel, job: engine.Hooks,
+                  estimate_seconds: float | None, n: int) -> None:
     """Labelled estimates for the numbers of a row that exact work did not finish: the
     assignments and every-round-used from the same draws, and (when nothing but clashes
     constrains the league, so that they describe the same graph) groupings as
     every-round-used / K!."""
     k = row.rounds
-    share = None if clock.estimate_seconds is None else clock.estimate_seconds / n
-    hooks = engine.Hooks(cancel=clock.cancel, budget=share)
-    got = clock.run(lambda: engine.estimate_counts(
+    share = None if estimate_seconds is None else estimate_seconds / n
+    hooks = engine.Hooks(cancel=job.cancel, budget=share, clock=job.clock)
+    got = _exact(lambda: engine.estimate_counts(
         model.graph, k, pins=model.pins, exclusions=model.exclusions, hooks=hooks))
     if got is None:
         return
@@ -227,12 +203,31 @@ def _estimate_row(report: CountReport, row: CountRow, model: CountingModel, cloc
 
 
 def _groupings_at(report: CountReport, base: CountingModel, k: int, row: CountRow,
-                  clock: _Clock, start: float) -> int | None:
+                  job: engine.Hooks, start: float) -> int | None:
     """Groupings of the clash graph into exactly K rounds without the polynomial:
     every-round-used of the unconstrained graph divided by K!."""
     if report.pinned:
-        unconstrained = clock.run(lambda: engine.count_all_rounds_used(
-            base.clashes, k, hooks=clock.hooks(f"{k} rounds, groupings", start, 0.0)))
+        unconstrained = _exact(lambda: engine.count_all_rounds_used(
+            base.clashes, k, hooks=job.part(start, start, stage=f"{k} rounds, groupings")))
     else:
         unconstrained = row.all_rounds_used
     return None if unconstrained is None else unconstrained // math.factorial(k)
+
+
+def estimate_seconds(graph: nx.Graph) -> float | None:
+    """The engine's guess of how long the full polynomial takes (None when it cannot say)."""
+    try:
+        return float(engine.estimate_cost(graph).seconds)
+    except Exception:  # an estimate is advice only; counting goes ahead without it
+        return None
+
+
+def count_league(league: League, graph: nx.Graph, rounds: list[int] | None = None,
+                 hooks: engine.Hooks | None = None) -> CountReport:
+    """The counts table, saying first (as progress) how long the work may take when long."""
+    hooks = hooks or engine.Hooks()
+    notice = wording.long_work_text(estimate_seconds(graph), hooks.remaining(),
+                                    LONG_WORK_SECONDS)
+    if notice is not None:
+        hooks.report(0.0, notice)
+    return count_report(league, graph, rounds=rounds, hooks=hooks)

@@ -1,4 +1,4 @@
-"""The `leaguegrid` command: open the window, or check, count, plan and what-if from a shell.
+"""The `leaguegrid` commands: check, count, plan, whatif, demos, new (argument parsing).
 
 Exit codes, the same for every command: 0 success; 1 input problems; 2 usage errors; 3 nothing
 possible (proven); 4 a file could not be written; 5 stopped at the budget or cancelled.
@@ -12,22 +12,11 @@ import sys
 from collections.abc import Sequence
 from pathlib import Path
 
-import networkx as nx
-
 from leaguegrid import __version__
-from leaguegrid.cli.render import (
-    print_check,
-    print_counts,
-    print_problems,
-)
-from leaguegrid.core.model import League
+from leaguegrid.app.defaults import COUNT_BUDGET, PLAN_BUDGET, WHATIF_BUDGET
+from leaguegrid.cli.exits import OK, STOPPED, USAGE, UsageError
 
-OK, INPUT_PROBLEMS, USAGE, IMPOSSIBLE, WRITE_FAILED, STOPPED = 0, 1, 2, 3, 4, 5
-COMMANDS = ("check", "count", "plan", "whatif")
-
-
-class UsageError(Exception):
-    """A command line that cannot be carried out as asked (exit 2)."""
+COMMANDS = ("check", "count", "plan", "whatif", "demos", "new")
 
 
 def parse_rounds(text: str) -> tuple[int, int]:
@@ -43,6 +32,11 @@ def parse_rounds(text: str) -> tuple[int, int]:
         raise argparse.ArgumentTypeError(
             f"--rounds needs 1 <= first <= last, not {text!r}")
     return a, b
+
+
+def _budget(parser: argparse.ArgumentParser, default: float) -> None:
+    parser.add_argument("--budget", type=float, default=default, metavar="SECONDS",
+                        help=f"time limit for the whole command (default {default:g})")
 
 
 def build_parser() -> argparse.ArgumentParser:
@@ -63,20 +57,20 @@ def build_parser() -> argparse.ArgumentParser:
     count.add_argument("file", type=Path)
     count.add_argument("--rounds", type=parse_rounds, metavar="K|A..B")
     count.add_argument("--json", action="store_true", help="one JSON object on stdout")
-    count.add_argument("--budget", type=float, default=60.0, metavar="SECONDS",
-                       help="time limit for the whole command (default 60)")
+    _budget(count, COUNT_BUDGET)
 
-    plan = sub.add_parser("plan", help="draw a schedule for K rounds and export it")
+    plan = sub.add_parser("plan", help="make a schedule for K rounds and export it")
     plan.add_argument("file", type=Path)
     plan.add_argument("--rounds", type=int, required=True, metavar="K")
     plan.add_argument("--seed", type=int)
     plan.add_argument("--draws", type=int, default=1, metavar="N",
-                      help="draw N schedules and keep the best by --score")
+                      help="draw N schedules and keep the best by --score (every term when "
+                      "--score is not given)")
     plan.add_argument("--score", metavar="TERMS", help="comma-separated score terms")
     plan.add_argument("--out", type=Path, metavar="CALENDAR.xlsx")
     plan.add_argument("--ics", type=Path, metavar="DIR")
     plan.add_argument("--csv", type=Path, metavar="FILE")
-    plan.add_argument("--budget", type=float, default=60.0, metavar="SECONDS")
+    _budget(plan, PLAN_BUDGET)
 
     whatif = sub.add_parser("whatif", help="what waiving or adding a clash would change")
     whatif.add_argument("file", type=Path)
@@ -88,82 +82,28 @@ def build_parser() -> argparse.ArgumentParser:
     whatif.add_argument("--close", metavar="VENUE,ROUND",
                         help="counts before and after a venue closes for a round (or a date)")
     whatif.add_argument("--json", action="store_true")
-    whatif.add_argument("--budget", type=float, default=60.0, metavar="SECONDS")
+    _budget(whatif, WHATIF_BUDGET)
+
+    sub.add_parser("demos", help="list the demo league workbooks that come with LeagueGrid")
+
+    new = sub.add_parser("new", help="write a blank league workbook to fill in")
+    new.add_argument("file", type=Path, metavar="FILE.xlsx")
     return parser
 
 
-def load(path: Path) -> tuple[League, nx.Graph] | None:
-    """Read a league; print its problems to stderr. Returns (league, graph) or None."""
-    from leaguegrid.clashes.graph import build_clash_graph
-    from leaguegrid.io.read.league_reader import load_league
-
-    result = load_league(path)
-    print_problems(result.problems, sys.stderr)
-    if not result.ok:
-        return None
-    return result.league, build_clash_graph(result.league)
-
-
-def cmd_check(args: argparse.Namespace) -> int:
-    from leaguegrid.clashes.graph import build_clash_graph
-    from leaguegrid.io.read.league_reader import load_league
-
-    result = load_league(args.file)
-    graph = build_clash_graph(result.league) if result.ok else None
-    print_check(result, graph, sys.stdout)
-    return OK if result.ok else INPUT_PROBLEMS
-
-
-def cmd_count(args: argparse.Namespace) -> int:
-    from leaguegrid.app.counting import count_report
-
-    loaded = load(args.file)
-    if loaded is None:
-        return INPUT_PROBLEMS
-    league, graph = loaded
-    rounds = None
-    if args.rounds is not None:
-        first, last = args.rounds
-        check_round_limit(league, last)
-        rounds = list(range(first, last + 1))
-    report = count_report(league, graph, rounds=rounds, budget=args.budget)
-    print_counts(report, league, sys.stdout, as_json=args.json)
-    return OK if report.complete else STOPPED
-
-
-def check_round_limit(league: League, rounds: int) -> None:
-    """A Rounds sheet lists every round there is: asking for more is a usage error."""
-    if rounds < 1:
-        raise UsageError(f"--rounds must be a positive whole number, not {rounds}")
-    if league.rounds_fixed and rounds > len(league.rounds):
-        raise UsageError(f"the Rounds sheet lists {len(league.rounds)} rounds; "
-                         f"--rounds {rounds} asks for more")
-
-
-def load_for_rounds(args: argparse.Namespace) -> tuple[League, nx.Graph] | None:
-    """Read the league of a plan or whatif command and check its --rounds; None on problems."""
-    loaded = load(args.file)
-    if loaded is not None:
-        check_round_limit(loaded[0], args.rounds)
-    return loaded
-
-
-def cmd_plan(args: argparse.Namespace) -> int:
-    from leaguegrid.cli.commands import run_plan
-
-    loaded = load_for_rounds(args)
-    return INPUT_PROBLEMS if loaded is None else run_plan(args, *loaded)
-
-
-def cmd_whatif(args: argparse.Namespace) -> int:
-    from leaguegrid.cli.commands import run_whatif
-
-    loaded = load_for_rounds(args)
-    return INPUT_PROBLEMS if loaded is None else run_whatif(args, *loaded)
+def _plain_output() -> None:
+    """Names and counts print whatever the console's encoding: what it cannot show is replaced,
+    never a crash."""
+    for stream in (sys.stdout, sys.stderr):
+        encoding = (getattr(stream, "encoding", None) or "").lower().replace("-", "")
+        if encoding != "utf8" and hasattr(stream, "reconfigure"):
+            stream.reconfigure(errors="replace")
 
 
 def main(argv: Sequence[str] | None = None) -> int:
     """The command line: `leaguegrid COMMAND ...` (the launcher hands commands here)."""
+    from leaguegrid.cli import commands
+
     argv = list(sys.argv[1:] if argv is None else argv)
     if argv and argv[0] not in COMMANDS and not argv[0].startswith("-"):
         build_parser().error(f"unknown command {argv[0]!r}; commands: {', '.join(COMMANDS)}")
@@ -172,10 +112,9 @@ def main(argv: Sequence[str] | None = None) -> int:
     if args.command is None:
         parser.print_help()
         return USAGE
-    handler = {"check": cmd_check, "count": cmd_count, "plan": cmd_plan,
-               "whatif": cmd_whatif}[args.command]
+    _plain_output()
     try:
-        return handler(args)
+        return commands.HANDLERS[args.command](args)
     except UsageError as err:
         print(f"leaguegrid {args.command}: {err}", file=sys.stderr)
         return USAGE

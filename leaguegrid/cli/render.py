@@ -1,4 +1,5 @@
-"""Text and JSON output of the command line: problems, the check listing, the counts table."""
+"""What the command line prints, as text or JSON: problems, the check listing, the counts
+table, a schedule, the what-if report. Numbers and plurals come from core.wording."""
 
 from __future__ import annotations
 
@@ -9,35 +10,18 @@ from typing import TextIO
 import networkx as nx
 
 from leaguegrid.app.counting import CountReport, Number
-from leaguegrid.core.model import League, LoadResult, Problem
-
-SHORT_DIGITS = 15  # numbers longer than this also get a short scientific form
+from leaguegrid.app.league import OpenedLeague
+from leaguegrid.app.planning import PlanOutcome
+from leaguegrid.app.whatif import WhatIfOutcome
+from leaguegrid.core.model import League, Problem
+from leaguegrid.core.wording import count_text, plural, times_text
+from leaguegrid.scheduling.dates import DatesError, dated_fixtures
 
 
 def print_problems(problems: list[Problem], out: TextIO) -> None:
     """Every problem, one per line, errors first."""
     for problem in sorted(problems, key=lambda p: p.severity != "error"):
         print(str(problem), file=out)
-
-
-def short_form(value: int) -> str:
-    """A short scientific form for a huge integer, e.g. 1.23e45 (for reading, never exact)."""
-    digits = str(abs(value))
-    if len(digits) <= SHORT_DIGITS:
-        return ""
-    mantissa = f"{digits[0]}.{digits[1:3]}"
-    return f"{'-' if value < 0 else ''}{mantissa}e{len(digits) - 1}"
-
-
-def number_text(value: Number) -> str:
-    """An exact integer with digit grouping, an estimate marked as one, or 'not computed'."""
-    if value is None:
-        return "not computed"
-    if isinstance(value, int):
-        short = short_form(value)
-        return f"{value:,}" + (f" (~{short})" if short else "")
-    return (f"estimate ~{value.value:.3g} (likely between {value.low:.3g} and {value.high:.3g}, "
-            f"{value.method})")
 
 
 def number_json(value: Number) -> int | dict | None:
@@ -47,15 +31,16 @@ def number_json(value: Number) -> int | dict | None:
     return {"value": value.value, "low": value.low, "high": value.high, "method": value.method}
 
 
-def print_check(result: LoadResult, graph: nx.Graph | None, out: TextIO) -> None:
+def print_check(opened: OpenedLeague, out: TextIO) -> None:
     """What `check` prints: the league's contents, then every problem."""
-    league = result.league
-    if league is not None:
-        _print_contents(league, graph, out)
+    result = opened.result
+    if result.league is not None:
+        _print_contents(result.league, opened.graph, out)
     errors = result.errors
     warnings = [p for p in result.problems if p.severity == "warning"]
     if result.problems:
-        print(f"\nProblems: {len(errors)} error(s), {len(warnings)} warning(s)", file=out)
+        print(f"\nProblems: {plural(len(errors), 'error')}, {plural(len(warnings), 'warning')}",
+              file=out)
         print_problems(result.problems, out)
     else:
         print("\nProblems: none", file=out)
@@ -151,8 +136,104 @@ def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool
     print("", file=out)
     print("Rounds | Assignments | Every round used | Groupings", file=out)
     for row in report.rows:
-        cells = [number_text(v) for v in (row.assignments, row.all_rounds_used, row.groupings)]
+        cells = [count_text(v) for v in (row.assignments, row.all_rounds_used, row.groupings)]
         print(f"{row.rounds:>6} | " + " | ".join(cells), file=out)
     if not report.complete:
         what = "cancelled" if report.cancelled else "stopped at the budget"
         print(f"\nIncomplete: {what}; 'not computed' and estimates are not exact.", file=out)
+
+
+def print_plan(outcome: PlanOutcome, league: League, out: TextIO, err: TextIO) -> None:
+    """What `plan` prints: the seed, the count, notes and rules, the score and the schedule
+    round by round; why there is none on `err`."""
+    seed, k = outcome.seed, outcome.rounds
+    print(f"{league.name}: {plural(k, 'round')}, seed {seed}"
+          + ("" if outcome.seed_given else f" (drawn; --seed {seed} gives this again)"), file=out)
+    schedule, result = outcome.schedule, outcome.result
+    if schedule is None:
+        if result.status == "impossible":
+            print(f"No schedule with {plural(k, 'round')} exists:", file=err)
+        elif result.status == "budget":
+            print("Stopped at the budget before a schedule was found; nothing is proven. "
+                  "Try a larger --budget.", file=err)
+        else:
+            print("Cancelled before a schedule was found.", file=err)
+        for reason in result.reasons:
+            print(f"  {reason}", file=err)
+        return
+    if result.assignments is not None:
+        print(f"Valid assignments for {plural(k, 'round')}: {count_text(result.assignments)} "
+              "(exact)", file=out)
+    for note in schedule.notes:
+        print(f"Note: {note}", file=out)
+    if schedule.rules_counted:
+        print("Counts include: " + "; ".join(schedule.rules_counted), file=out)
+    if schedule.rules_generator:
+        print("Enforced by the generator only (not in the counts): "
+              + "; ".join(schedule.rules_generator), file=out)
+    try:
+        rows = dated_fixtures(league, schedule)
+    except DatesError as problem:
+        print(f"leaguegrid plan: {problem}", file=err)
+        return
+    current = None
+    for row in rows:
+        info = row.round
+        if info.number != current:
+            current = info.number
+            when = " ".join(x for x in (info.date and info.date.isoformat(),
+                                        info.time and info.time.strftime("%H:%M")) if x)
+            print(f"\nRound {info.number}" + (f" ({when})" if when else ""), file=out)
+        f = row.fixture
+        place = f" at {f.venue}" + (f", pitch {f.pitch}" if f.pitch else "") if f.venue else ""
+        print(f"  {f.label}{place}", file=out)
+    empty = [r for r, labels in schedule.by_round().items() if not labels]
+    if empty:
+        print(f"\nEmpty rounds: {', '.join(map(str, empty))}", file=out)
+
+
+def print_written(paths: list, out: TextIO) -> None:
+    """The files an export wrote."""
+    if paths:
+        print("\nWrote: " + ", ".join(str(p) for p in paths), file=out)
+
+
+def print_whatif(outcome: WhatIfOutcome, league: League, out: TextIO, as_json: bool) -> None:
+    """What `whatif` prints: the reasons ranked by gain, the proposed clash, the changes."""
+    if as_json:
+        json.dump(outcome.to_json(), out, indent=2)
+        out.write("\n")
+        return
+    report = outcome.report
+    k = report.rounds
+    fewest = report.min_rounds if report.min_rounds is not None else "unknown"
+    print(f"{league.name}, {plural(k, 'round')}: {count_text(report.assignments)} valid "
+          f"assignments; fewest rounds {fewest}", file=out)
+    if report.reasons:
+        print("\nWaiving one clash reason (every clash that exists only because of it):",
+              file=out)
+        print("Schedules if waived | Assignments if waived | Fewest rounds if waived | "
+              "Clashes | Reason", file=out)
+        for w in report.reasons:
+            more = ("not computed" if w.assignments_if_waived is None or report.assignments is None
+                    else times_text(w.assignments_if_waived, report.assignments))
+            if_waived = w.min_rounds_if_waived if w.min_rounds_if_waived is not None else "?"
+            print(f"{more} | {count_text(w.assignments_if_waived)} | {if_waived} | "
+                  f"{len(w.edges)} | {w.reason} ({w.kind})", file=out)
+    if report.added is not None:
+        a = report.added
+        fewest_added = a.min_rounds_if_added if a.min_rounds_if_added is not None else "unknown"
+        print(f"\nAdding a clash between {a.first} and {a.second} "
+              f"({plural(len(a.edges), 'new clashing pair')}): "
+              f"{count_text(a.assignments_if_added)} assignments remain, "
+              f"{count_text(a.loss)} fewer; fewest rounds {fewest_added}", file=out)
+    for change in outcome.changes:
+        print(f"\nIf {change.change}: {count_text(change.assignments_before)} -> "
+              f"{count_text(change.assignments_after)} valid assignments for "
+              f"{plural(change.rounds, 'round')}; fewest rounds {change.min_rounds_before} -> "
+              f"{change.min_rounds_after}", file=out)
+        if change.fixtures_added:
+            print(f"  new fixtures: {', '.join(change.fixtures_added)}", file=out)
+    if not report.complete:
+        print("\nIncomplete: stopped at the budget; 'not computed' values are missing.",
+              file=out)

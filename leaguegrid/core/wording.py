@@ -1,14 +1,30 @@
-"""User-facing number formats and wording: exact integers with digit grouping, a short
-scientific form for huge ones, estimates always labelled as estimates, plurals."""
+"""The one place for user-facing wording and number formats, used by the command line, the
+window and the exports alike: exact integers with every digit grouped, a short scientific form
+for huge ones, estimates always labelled as estimates, plurals ("1 round", "2 rounds")."""
 
 from __future__ import annotations
 
 import math
 from typing import Any
 
+from leaguegrid.core.model import Schedule
+
 SHORT_DIGITS = 16  # integers with more digits than this also get a short scientific form
 SUPERSCRIPT = str.maketrans("0123456789-", "⁰¹²³⁴⁵⁶⁷⁸⁹⁻")
 NOT_COMPUTED = "not computed"
+CAUTION = (
+    "LeagueGrid counts and proposes schedules. Before publishing, a coordinator checks every "
+    "schedule against the association's rules (rest between games for juniors, heat, lighting, "
+    "travel) and local regulations."
+)
+METHODS = {"uniform": "drawn uniformly at random from every valid assignment",
+           "search": "found by the rule-aware generator",
+           "edited": "edited by hand"}
+
+
+def plural(n: int, one: str, many: str | None = None) -> str:
+    """'1 round', '2 rounds', '3 clashes' (with `many` given): never 'round(s)'."""
+    return f"{n} {one if n == 1 else (many or one + 's')}"
 
 
 def is_estimate(value: Any) -> bool:
@@ -22,7 +38,7 @@ def grouped(n: int) -> str:
 
 
 def scientific(x: int | float, digits: int = 3) -> str:
-    """A short scientific form such as 1.23 × 10¹⁸ (exact ints are rounded only for display)."""
+    """The short form, such as 1.23 × 10¹⁸ (exact ints are rounded only for display)."""
     if x == 0:
         return "0"
     sign = "-" if x < 0 else ""
@@ -40,49 +56,75 @@ def scientific(x: int | float, digits: int = 3) -> str:
     return f"{sign}{mantissa:.{digits - 1}f} × 10{str(exp).translate(SUPERSCRIPT)}"
 
 
+def _long(n: int) -> bool:
+    return len(str(abs(n))) > SHORT_DIGITS
+
+
 def compact(n: int | float) -> str:
-    """Grouped digits when short enough to read, else the short scientific form."""
-    if isinstance(n, int) and len(str(abs(n))) <= SHORT_DIGITS:
+    """Grouped digits when short enough to read, else the short form."""
+    if isinstance(n, int) and not _long(n):
         return grouped(n)
     if isinstance(n, float) and abs(n) < 10 ** SHORT_DIGITS:
         return grouped(round(n))
     return scientific(n)
 
 
-def cell_text(value: Any) -> str:
-    """The text of one count in the table."""
-    if value is None:
-        return NOT_COMPUTED
-    if isinstance(value, int):
-        if len(str(abs(value))) <= SHORT_DIGITS:
-            return grouped(value)
-        return f"{scientific(value)} ({len(str(abs(value)))} digits)"
-    if is_estimate(value):
-        return f"≈ {compact(value.low)}–{compact(value.high)} (estimate)"
-    return str(value)
+def estimate_text(value: Any) -> str:
+    """An estimate in words, never mistaken for an exact count."""
+    method = getattr(value, "method", "")
+    how = f" by {method}" if method else ""
+    return (f"estimate{how}: between {compact(value.low)} and {compact(value.high)}, "
+            f"about {compact(value.value)}; not an exact count")
 
 
 def full_text(value: Any) -> str:
-    """The whole value, for a tooltip or the clipboard: every digit of an exact count."""
+    """The whole value: every digit of an exact count, an estimate in words, or 'not computed'
+    (for a tooltip, the clipboard and the exports)."""
     if value is None:
         return NOT_COMPUTED
     if isinstance(value, int):
         return grouped(value)
     if is_estimate(value):
-        method = getattr(value, "method", "")
-        how = f" by {method}" if method else ""
-        return (f"estimate{how}: between {compact(value.low)} and {compact(value.high)}, "
-                f"about {compact(value.value)}; not an exact count")
+        return estimate_text(value)
     return str(value)
+
+
+def count_text(value: Any) -> str:
+    """A count as the command line prints it: every digit, then the short form when long."""
+    text = full_text(value)
+    if isinstance(value, int) and _long(value):
+        text += f" (about {scientific(value)})"
+    return text
+
+
+def cell_text(value: Any) -> str:
+    """A count in a table cell: every digit when short, else the short form and its length."""
+    if isinstance(value, int) and _long(value):
+        return f"{scientific(value)} ({plural(len(str(abs(value))), 'digit')})"
+    if is_estimate(value):
+        return f"≈ {compact(value.low)}–{compact(value.high)} (estimate)"
+    return full_text(value)
+
+
+def times_text(after: int, before: int) -> str:
+    """How a count changes, in words: '3.2 times as many', 'the same number', 'none left'."""
+    if before == 0:
+        return "none before" if after == 0 else "some where there were none"
+    if after == before:
+        return "the same number"
+    if after == 0:
+        return "none left"
+    ratio = after / before
+    return f"{ratio:.3g} times as many" if ratio >= 1 else f"{1 / ratio:.3g} times fewer"
 
 
 def log10_of(value: Any) -> float | None:
     """log10 of a positive count (exact or the centre of an estimate); None for 0 or unknown."""
     if isinstance(value, int):
-        return _log10_int(value) if value > 0 else None
+        return math.log10(value) if value > 0 else None
     if is_estimate(value):
         centre = value.value
-        return _log10_int(int(centre)) if centre and centre >= 1 else None
+        return math.log10(int(centre)) if centre and centre >= 1 else None
     return None
 
 
@@ -90,16 +132,53 @@ def log10_range(value: Any) -> tuple[float, float] | None:
     """(log10 low, log10 high) of an estimate; None for anything else."""
     if not is_estimate(value) or value.low is None or value.high is None:
         return None
-    low = _log10_int(int(value.low)) if value.low >= 1 else 0.0
-    high = _log10_int(int(value.high)) if value.high >= 1 else 0.0
+    low = math.log10(int(value.low)) if value.low >= 1 else 0.0
+    high = math.log10(int(value.high)) if value.high >= 1 else 0.0
     return low, high
 
 
-def _log10_int(n: int) -> float:
-    """log10 of a positive integer of any size (math.log10 handles big ints exactly enough)."""
-    return math.log10(n)
+def long_work_text(seconds: float | None, budget: float | None, quick: float) -> str | None:
+    """What is said before a long count: the engine's guess of the time, or, when that passes
+    the budget, that what does not finish in time will be estimated; None below `quick` s."""
+    if seconds is None or seconds <= quick:
+        return None
+    if budget is not None and seconds > budget:
+        return (f"Counting; the exact work may take longer than the {budget:.0f} s allowed: what "
+                "does not finish in time is shown as a labelled estimate (Esc cancels)")
+    return f"Counting; this may take about {seconds:.0f} s (Esc cancels)"
 
 
-def plural(n: int, one: str, many: str | None = None) -> str:
-    """'1 round', '2 rounds', '3 clashes' (with `many` given): never 'round(s)'."""
-    return f"{n} {one if n == 1 else (many or one + 's')}"
+def sentence(text: str) -> str:
+    """Text as a sentence: a capital first letter and one full stop."""
+    return (text[:1].upper() + text[1:]).rstrip(".") + "."
+
+
+def schedule_summary(schedule: Schedule) -> str:
+    """One paragraph: rounds, seed, how the schedule was made, which rules the counts include."""
+    how = METHODS.get(schedule.method, schedule.method)
+    parts = [f"{plural(schedule.rounds, 'round')}, seed {schedule.seed}, {how}."]
+    if schedule.rules_counted:
+        parts.append("Counted exactly: " + "; ".join(schedule.rules_counted) + ".")
+    if schedule.rules_generator:
+        parts.append("Enforced by the generator only: " + "; ".join(schedule.rules_generator)
+                     + ".")
+    parts += [sentence(n) for n in schedule.notes]
+    return " ".join(parts)
+
+
+def plan_failure(status: str, rounds: int, reasons: list[str]) -> str:
+    """Why no schedule came out: proven impossible, stopped at the budget, or cancelled."""
+    if status == "impossible":
+        return f"No schedule with {plural(rounds, 'round')}: " + "; ".join(reasons)
+    if status == "budget":
+        return (f"No schedule found for {plural(rounds, 'round')} within the time allowed; "
+                "nothing is proven.")
+    return "Making a schedule was cancelled."
+
+
+def rules_note(described: list[str]) -> str:
+    """Which rules only the schedule generator enforces, or '' when there are none."""
+    if not described:
+        return ""
+    return ("Only the schedule generator enforces: " + "; ".join(described) +
+            " (the counts do not include these).")

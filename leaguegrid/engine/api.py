@@ -22,7 +22,7 @@ from .chromatic_number import (
 from .estimate import Estimate, summarise
 from .falling import falling, to_falling
 from .graph import Graph, from_networkx
-from .hooks import BudgetExceeded, Hooks, NoAssignment, Ticker
+from .hooks import BudgetExceeded, Hooks, NoAssignment, begin
 from .parallel import estimate_draws
 from .pins import assignment_back, transform
 from .sampling import Sampler
@@ -65,7 +65,7 @@ def _check_k(k: int) -> None:
         raise ValueError(f"round count {k!r} is not a whole number >= 0")
 
 
-def _count(g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Ticker) -> int:
+def _count(g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Hooks) -> int:
     """Assignments of g to rounds 1..k honouring pins and exclusions."""
     if k == 0:
         return 1 if g.n == 0 else 0
@@ -78,7 +78,7 @@ def _count(g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker
 
 
 def _count_on_rounds(
-    g: Graph, rounds: list[int], ip: dict[int, int], ie: dict[int, set[int]], ticker: Ticker
+    g: Graph, rounds: list[int], ip: dict[int, int], ie: dict[int, set[int]], ticker: Hooks
 ) -> int:
     """Assignments using only the given rounds (renumbered 1..len(rounds))."""
     new = {r: i + 1 for i, r in enumerate(rounds)}
@@ -97,7 +97,7 @@ def _counted(
 ):
     """Check k, prepare the graph, run one count (exact or estimated) with progress 0 to 1."""
     _check_k(k)
-    ticker = Ticker(hooks)
+    ticker = begin(hooks)
     ticker.report(0.0, "starting")
     g, _, ip, ie = _prepare(G, pins, exclusions)
     out = count(g, k, ip, ie, ticker)
@@ -107,7 +107,7 @@ def _counted(
 
 def chromatic_polynomial(G: nx.Graph, hooks: Hooks | None = None) -> fmpz_poly:
     """P(G, x): the number of clash-free assignments to x rounds, as a polynomial."""
-    ticker = Ticker(hooks)
+    ticker = begin(hooks)
     ticker.report(0.0, "starting")
     g, _ = from_networkx(G)
     p = solve.polynomial(g, ticker)
@@ -139,7 +139,7 @@ def count_all_rounds_used(
 
 
 def _all_rounds_used(
-    g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Ticker
+    g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Hooks
 ) -> int:
     """Assignments using every round 1..k, by inclusion-exclusion over the rounds left empty.
 
@@ -187,7 +187,7 @@ def count_table(
     wanted = sorted(set(ks))
     for k in wanted:
         _check_k(k)
-    ticker = Ticker(hooks)
+    ticker = begin(hooks)
     ticker.report(0.0, "starting")
     g, _, ip, ie = _prepare(G, pins, exclusions)
     out: dict[int, tuple[int, int]] = {}
@@ -215,7 +215,7 @@ def groupings(G: nx.Graph, hooks: Hooks | None = None) -> list[int]:
     return (a + [0] * (n + 1))[: n + 1]
 
 
-def _lower_bound(g: Graph, ip: dict[int, int], ticker: Ticker) -> int:
+def _lower_bound(g: Graph, ip: dict[int, int], ticker: Hooks) -> int:
     """A proven lower bound: the largest clique, and the largest pinned round."""
     if g.n == 0:
         return 0
@@ -281,7 +281,7 @@ def min_rounds_proof(
     hooks: Hooks | None = None,
 ) -> RoundsProof:
     """The fewest rounds, a schedule using them, and why one fewer is impossible."""
-    ticker = Ticker(hooks)
+    ticker = begin(hooks)
     ticker.report(0.0, "starting")
     g, nodes, ip, ie = _prepare(G, pins, exclusions)
     why = _never_possible(g, ip, ie)
@@ -319,9 +319,9 @@ def min_rounds_bounds(
 ) -> tuple[int, int]:
     """Proven (low, high) for the fewest rounds: low from a clique, the largest pin and
     exhaustive searches that failed; high from a schedule found. Equal when exact."""
-    hooks = hooks or Hooks()
-    budget = hooks.budget if hooks.budget is not None else BOUNDS_SECONDS
-    ticker = Ticker(Hooks(hooks.progress, hooks.cancel, budget))
+    ticker = begin(hooks)
+    if ticker.deadline is None:
+        ticker = ticker.part(seconds=BOUNDS_SECONDS)
     ticker.report(0.0, "starting")
     g, _, ip, ie = _prepare(G, pins, exclusions)
     why = _never_possible(g, ip, ie)
@@ -370,7 +370,7 @@ def sample_assignments(
 ) -> list[dict[Hashable, int]]:
     """`count` independent uniform draws (the counting tables are built once for all)."""
     _check_k(k)
-    ticker = Ticker(hooks)
+    ticker = begin(hooks)
     ticker.report(0.0, "starting")
     g, nodes, ip, ie = _prepare(G, pins, exclusions)
     if g.n == 0:
@@ -416,7 +416,7 @@ def estimate_counts(
 
 
 def _estimates(
-    g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Ticker
+    g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Hooks
 ) -> tuple[Estimate, Estimate]:
     """The two estimates of estimate_counts on the engine's graph."""
     doms = domains_for(g.n, k, ip, ie) if k > 0 else None

@@ -20,7 +20,7 @@ import networkx as nx
 
 from .frontier import State, step_masks, successors
 from .graph import Graph, from_networkx
-from .hooks import Ticker
+from .hooks import Hooks
 from .orders import best_order, frontier_sizes, partitions_bound
 from .reductions import plan
 
@@ -36,7 +36,7 @@ class Cost:
     seconds: float
 
 
-def piece_cost(g: Graph, k: int | None, ticker: Ticker) -> tuple[int, float]:
+def piece_cost(g: Graph, k: int | None, ticker: Hooks) -> tuple[int, float]:
     """(largest layer, seconds) for one connected piece."""
     order = best_order(g, k, ticker.check)
     steps = step_masks(g, order)
@@ -95,7 +95,7 @@ def _extrapolate(sizes: list[int], bounds: list[int]) -> list[int]:
 def estimate_cost(G: nx.Graph, k: int | None = None) -> Cost:
     """Estimated cost of the exact polynomial (k None) or of the count at k rounds."""
     g, _ = from_networkx(G)
-    ticker = Ticker()
+    ticker = Hooks()
     parts = plan(g).pieces
     largest = 1
     seconds = 0.0

@@ -1,11 +1,21 @@
-"""Progress, cancel and budget hooks shared by every engine entry point."""
+"""The one budget, progress and cancel object of LeagueGrid, and the engine's stop signals.
+
+`Hooks` is what every long piece of work accepts: the engine's entry points, the schedule
+search, the counts table and the what-if analyses. A caller makes one for a whole job; each
+step gets a `part` of it (its own share of the time left, its progress mapped into a slice of
+the whole); the engine checks it often. It lives here so the engine imports nothing else of the
+package; everything else passes it on.
+"""
 
 from __future__ import annotations
 
 import threading
 import time
-from collections.abc import Callable
-from dataclasses import dataclass
+from collections.abc import Callable, Iterator
+from contextlib import contextmanager
+
+Progress = Callable[[float, str], None]
+Clock = Callable[[], float]
 
 
 class Cancelled(Exception):
@@ -20,78 +30,100 @@ class NoAssignment(Exception):
     """No valid round assignment exists for the rounds asked for (proven)."""
 
 
-@dataclass
 class Hooks:
-    """What a caller passes to watch and stop long work.
+    """A budget in seconds, a cancel event and a progress callback, for one job or one step.
 
-    `progress(fraction, stage)` is called with fractions rising from 0 to 1, `cancel` is a
-    `threading.Event` checked often, `budget` is a number of seconds for the whole call.
+    `progress(fraction, stage)` receives fractions that never go backwards; `cancel` is a
+    `threading.Event` set from any thread; `budget` is seconds from now (None: no limit);
+    `clock` is the time source (time.monotonic; a test may pass a fake clock, for instance
+    one that advances by one at every reading, which makes the budget a number of checks).
     """
 
-    progress: Callable[[float, str], None] | None = None
-    cancel: threading.Event | None = None
-    budget: float | None = None
+    def __init__(self, progress: Progress | None = None, cancel: threading.Event | None = None,
+                 budget: float | None = None, clock: Clock | None = None) -> None:
+        self.progress = progress
+        self.cancel = cancel
+        self.budget = budget
+        self.clock: Clock = clock or time.monotonic
+        self.deadline = None if budget is None else self.clock() + budget
+        self.allowed = budget  # the budget as the caller gave it, for messages
+        self.lo, self.hi, self.last = 0.0, 1.0, -1.0
 
+    def __repr__(self) -> str:
+        return f"Hooks(budget={self.budget!r}, cancelled={self.cancelled})"
 
-class Ticker:
-    """Checks cancel and budget and forwards progress for one public call.
+    @property
+    def cancelled(self) -> bool:
+        """True once the cancel event is set."""
+        return self.cancel is not None and self.cancel.is_set()
 
-    Progress is kept monotone and mapped into the window [lo, hi] of the current part of
-    the work, so nested steps can report their own 0..1 fractions.
-    """
-
-    def __init__(self, hooks: Hooks | None = None) -> None:
-        self.hooks = hooks or Hooks()
-        budget = self.hooks.budget
-        self.deadline = None if budget is None else time.monotonic() + budget
-        self.lo = 0.0
-        self.hi = 1.0
-        self.last = -1.0
+    def remaining(self) -> float | None:
+        """Seconds left (never below 0), or None without a budget."""
+        return None if self.deadline is None else max(0.0, self.deadline - self.clock())
 
     def check(self) -> None:
         """Raise Cancelled or BudgetExceeded when the caller asked to stop."""
-        cancel = self.hooks.cancel
-        if cancel is not None and cancel.is_set():
+        if self.cancelled:
             raise Cancelled("cancelled by the caller")
-        if self.deadline is not None and time.monotonic() > self.deadline:
-            raise BudgetExceeded(f"budget of {self.hooks.budget} s exceeded")
-
-    def remaining(self) -> float | None:
-        """Seconds left in the budget, or None when there is no budget."""
-        if self.deadline is None:
-            return None
-        return self.deadline - time.monotonic()
+        if self.deadline is not None and self.clock() > self.deadline:
+            raise BudgetExceeded(f"budget of {self.allowed:g} s exceeded")
 
     def report(self, fraction: float, stage: str) -> None:
-        """Report progress `fraction` (0..1) of the current window; never goes backwards."""
+        """Check, then report `fraction` (0..1) of the current window; never goes backwards."""
         self.check()
-        cb = self.hooks.progress
-        if cb is None:
+        if self.progress is None:
             return
         f = self.lo + (self.hi - self.lo) * min(max(fraction, 0.0), 1.0)
-        if f < self.last:
-            f = self.last
-        self.last = f
-        cb(f, stage)
+        self.last = f = max(f, self.last)
+        self.progress(f, stage)
 
-    def window(self, lo: float, hi: float) -> Window:
-        """A context in which fractions 0..1 map to [lo, hi] of the current window."""
-        return Window(self, lo, hi)
+    @contextmanager
+    def window(self, lo: float, hi: float) -> Iterator[Hooks]:
+        """Within the block, fractions 0..1 reported here map to [lo, hi] of the current
+        window (for the nested steps of one call)."""
+        old = self.lo, self.hi
+        span = self.hi - self.lo
+        self.lo, self.hi = self.lo + span * lo, self.lo + span * hi
+        try:
+            yield self
+        finally:
+            self.lo, self.hi = old
+
+    def part(self, lo: float = 0.0, hi: float = 1.0, *, share: float = 1.0,
+             seconds: float | None = None, stage: str | None = None) -> Hooks:
+        """Hooks for one step: the same cancel and clock; `share` of the time left (and at
+        most `seconds`, when given); progress 0..1 mapped into [lo, hi] of this window, its
+        stage text prefixed with `stage`."""
+        left = self.remaining()
+        if left is not None:
+            left *= share
+        if seconds is not None:
+            left = seconds if left is None else min(left, seconds)
+        child = Hooks(self._forward(lo, hi, stage), self.cancel, left, self.clock)
+        if self.allowed is not None and (seconds is None or left != seconds):
+            child.allowed = self.allowed
+        return child
+
+    def _forward(self, lo: float, hi: float, stage: str | None) -> Progress | None:
+        if self.progress is None:
+            return None
+        span = self.hi - self.lo
+        a, b = self.lo + span * lo, self.lo + span * hi
+
+        def forward(fraction: float, text: str) -> None:
+            if stage is not None:
+                text = f"{stage}: {text}" if text else stage
+            f = a + (b - a) * min(max(fraction, 0.0), 1.0)
+            self.last = f = max(f, self.last)
+            self.progress(f, text)
+
+        return forward
 
 
-class Window:
-    """Context manager that narrows a Ticker's progress window for a sub-step."""
+def begin(hooks: Hooks | None) -> Hooks:
+    """The hooks one engine call works with: a fresh part of the caller's (its own progress
+    window, the caller's cancel and time left), or unlimited hooks when none were given."""
+    return Hooks() if hooks is None else hooks.part()
 
-    def __init__(self, ticker: Ticker, lo: float, hi: float) -> None:
-        self.ticker = ticker
-        span = ticker.hi - ticker.lo
-        self.new = (ticker.lo + span * lo, ticker.lo + span * hi)
-        self.old = (ticker.lo, ticker.hi)
 
-    def __enter__(self) -> Ticker:
-        self.ticker.lo, self.ticker.hi = self.new
-        return self.ticker
-
-    def __exit__(self, *exc: object) -> None:
-        self.ticker.lo, self.ticker.hi = self.old
-
+Ticker = Hooks  # the name engine modules use for the hooks of the call in progress

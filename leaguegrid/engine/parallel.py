@@ -25,7 +25,7 @@ from flint import fmpz_poly
 
 from .estimate import sis_draws
 from .graph import Graph
-from .hooks import BudgetExceeded, Hooks, Ticker
+from .hooks import BudgetExceeded, Hooks
 
 ENV = "LEAGUEGRID_ENGINE_PROCESSES"
 PARALLEL_SCORE = 10**9  # order score from which a piece is worth a second process
@@ -40,7 +40,7 @@ def available() -> bool:
     return not mp.current_process().daemon
 
 
-def _compute(kind: str, g: Graph, order: list[int], param, ticker: Ticker):
+def _compute(kind: str, g: Graph, order: list[int], param, ticker: Hooks):
     from .frontier import count_at, count_many, count_polynomial
 
     if kind == "sis":
@@ -60,7 +60,7 @@ def _work(conn: Connection, kind: str, adj: list[int], order: list[int], param, 
     frontier.MEMORY_BYTES //= 2
     frontier.RESIDENT_GROWTH //= 2
     try:
-        out = _compute(kind, Graph(adj), order, param, Ticker(Hooks(budget=left)))
+        out = _compute(kind, Graph(adj), order, param, Hooks(budget=left))
         if isinstance(out, fmpz_poly):
             out = [int(c) for c in out.coeffs()]
         conn.send(("ok", out))
@@ -84,7 +84,7 @@ class Background:
         self.proc.start()
         child.close()
 
-    def result(self, ticker: Ticker):
+    def result(self, ticker: Hooks):
         """Wait for the child's answer, checking cancel and budget meanwhile."""
         while not self.conn.poll(0.05):
             ticker.check()
@@ -111,7 +111,7 @@ def solve_pieces(
     orders: list[list[int]],
     scores: list[int],
     param: object,
-    ticker: Ticker,
+    ticker: Hooks,
     shares: list[float],
     stop_early: Callable[[object], bool] = lambda _: False,
 ) -> list:
@@ -145,7 +145,7 @@ def solve_pieces(
 
 
 def estimate_draws(
-    g: Graph, domains: list[int], rounds: int, ticker: Ticker, draws: int = SIS_DRAWS
+    g: Graph, domains: list[int], rounds: int, ticker: Hooks, draws: int = SIS_DRAWS
 ) -> tuple[list[int], list[int]]:
     """The draws of an estimate (estimate.sis_draws, seed 0); on graphs of SIS_PARALLEL_FROM
     fixtures or more, half of them in a second process with seed 1."""

@@ -22,7 +22,8 @@ import networkx as nx
 
 from leaguegrid import engine
 from leaguegrid.core.model import League, Reason
-from leaguegrid.scheduling.rules import GeneratorRules, generator_rules, norm
+from leaguegrid.core.names import name_key
+from leaguegrid.scheduling.rules import GeneratorRules, generator_rules
 
 
 @dataclass
@@ -179,8 +180,8 @@ def fixture_blocks(league: League) -> dict[str, dict[int, str]]:
         row = f"Blocked row {b.row}" if b.row is not None else "Blocked"
         why = f"{who} is blocked in round {b.round} ({row}{': ' + b.reason if b.reason else ''})"
         for f in league.fixtures:
-            hit = (b.team and norm(b.team) in {norm(t) for t in f.teams}) or (
-                b.venue and norm(b.venue) == norm(f.venue)
+            hit = (b.team and name_key(b.team) in {name_key(t) for t in f.teams}) or (
+                b.venue and name_key(b.venue) == name_key(f.venue)
             )
             if hit:
                 out.setdefault(f.label, {}).setdefault(b.round, why)

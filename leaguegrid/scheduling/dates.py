@@ -17,12 +17,11 @@ from __future__ import annotations
 
 import datetime as dt
 import os
-import re
 import zoneinfo
-from dataclasses import dataclass
 from pathlib import Path
 
-from leaguegrid.core.model import Fixture, League, RoundInfo, Schedule
+from leaguegrid.core.dated import DatedFixture, DatedSchedule
+from leaguegrid.core.model import League, RoundInfo, Schedule
 
 
 class DatesError(ValueError):
@@ -112,29 +111,6 @@ def league_time_zone(league: League) -> dt.tzinfo:
     return zone if zone is not None else dt.UTC
 
 
-def natural_key(text: str | None) -> tuple:
-    """Sort key reading digit runs as numbers, so "U8" comes before "U10" and "Pitch 2" before
-    "Pitch 10"; case-insensitive, with the text itself breaking ties."""
-    parts = re.split(r"(\d+)", text or "")
-    return (tuple((0, int(p), "") if p.isdigit() else (1, 0, p.casefold()) for p in parts if p),
-            text or "")
-
-
-@dataclass(frozen=True)
-class DatedFixture:
-    """A fixture of a schedule with the round it was given."""
-
-    fixture: Fixture
-    round: RoundInfo
-
-    def sort_key(self) -> tuple:
-        """Round, then division, venue, pitch and label (in natural order), so every export
-        lists rows alike."""
-        f = self.fixture
-        return (self.round.number, natural_key(f.division), natural_key(f.venue),
-                natural_key(f.pitch), natural_key(f.label))
-
-
 def dated_fixtures(league: League, schedule: Schedule) -> list[DatedFixture]:
     """Every fixture of the league with its round's date and time, sorted by round.
 
@@ -162,3 +138,11 @@ def dated_fixtures(league: League, schedule: Schedule) -> list[DatedFixture]:
     rows = [DatedFixture(f, rounds[schedule.assignment[f.label] - 1]) for f in league.fixtures]
     rows.sort(key=DatedFixture.sort_key)
     return rows
+
+
+def date_schedule(league: League, schedule: Schedule,
+                  now: dt.datetime | None = None) -> DatedSchedule:
+    """The schedule dated once, for every export: rows as dated_fixtures, the league's time
+    zone, and `now` (default: this moment, UTC) as the time stamp. Raises DatesError."""
+    return DatedSchedule(league, schedule, dated_fixtures(league, schedule),
+                         league_time_zone(league), now or dt.datetime.now(dt.UTC))

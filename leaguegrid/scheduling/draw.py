@@ -13,7 +13,6 @@ from __future__ import annotations
 
 import random
 import secrets
-import threading
 from dataclasses import dataclass, field
 from typing import Literal
 
@@ -21,7 +20,6 @@ import networkx as nx
 
 from leaguegrid import engine
 from leaguegrid.core.model import League, Schedule
-from leaguegrid.scheduling.clock import Clock, Progress
 from leaguegrid.scheduling.constraints import CountingModel, build_model
 from leaguegrid.scheduling.rules import check_generator, prove_impossible
 from leaguegrid.scheduling.score import BestOf, ScoreCard, best_of
@@ -77,9 +75,7 @@ def plan(
     seed: int,
     draws: int = 1,
     terms: dict[str, float] | None = None,
-    budget: float | None = None,
-    progress: Progress | None = None,
-    cancel: threading.Event | None = None,
+    hooks: engine.Hooks | None = None,
     rule_draws: int = RULE_DRAWS,
 ) -> PlanResult:
     """A schedule for K rounds: uniform draws (best of `draws` by `terms`), or the rule search.
@@ -89,7 +85,7 @@ def plan(
     the exact count may use COUNT_SHARE of it and the draws DRAW_SHARE of what is left; when
     either does not finish, the rule search (seeded, not uniform) makes the schedule with the
     rest, and the notes say so."""
-    clock = Clock(budget, progress, cancel)
+    job = hooks or engine.Hooks()
     model = build_model(league, graph, rounds)
     result = PlanResult("impossible", seed, model=model)
     if model.contradictions:
@@ -103,27 +99,27 @@ def plan(
             return result
     notes: list[str] = []
     try:
-        result.assignments = model.count(clock.hooks(0.0, 0.3, COUNT_SHARE))
+        result.assignments = model.count(job.part(0.0, 0.3, share=COUNT_SHARE))
     except engine.Cancelled:
         result.status = "cancelled"
         return result
     except engine.BudgetExceeded:
         notes.append("the exact count did not finish within its share of the budget, so no "
                      "uniform draw was made")
-        return _by_search(result, league, model, seed, draws, terms, clock, notes)
+        return _by_search(result, league, model, seed, draws, terms, job, notes)
     if result.assignments == 0:
-        result.reasons = [why_none(model, clock)]
+        result.reasons = [why_none(model, job)]
         return result
     rng = random.Random(seed)
     wanted = max(draws, rule_draws) if rules.active else (max(draws, 1) if terms else 1)
     try:
-        drawn = draw_many(model, rng, wanted, clock.hooks(0.3, 0.8, DRAW_SHARE))
+        drawn = draw_many(model, rng, wanted, job.part(0.3, 0.8, share=DRAW_SHARE))
     except engine.Cancelled:
         result.status = "cancelled"
         return result
     except engine.BudgetExceeded:
         notes.append("the uniform draws did not finish within their share of the budget")
-        return _by_search(result, league, model, seed, draws, terms, clock, notes)
+        return _by_search(result, league, model, seed, draws, terms, job, notes)
     result.draws = len(drawn)
     kept = [a for a in drawn
             if not rules.active or not check_generator(league, rules, a, rounds)]
@@ -133,7 +129,7 @@ def plan(
     if kept:
         return _finish(result, league, model, kept, "uniform", terms, notes)
     notes.append("no uniform draw met every rule")
-    return _by_search(result, league, model, seed, draws, terms, clock, notes)
+    return _by_search(result, league, model, seed, draws, terms, job, notes)
 
 
 def _by_search(
@@ -143,11 +139,11 @@ def _by_search(
     seed: int,
     draws: int,
     terms: dict[str, float] | None,
-    clock: Clock,
+    job: engine.Hooks,
     notes: list[str],
 ) -> PlanResult:
     """The schedule (best of several when scoring) from the rule search."""
-    found = _search_fallback(result, model, seed, draws if terms else 1, clock)
+    found = _search_fallback(result, model, seed, draws if terms else 1, job)
     if not found:
         if result.status == "budget":
             result.reasons = [*notes, *result.reasons]
@@ -157,14 +153,13 @@ def _by_search(
 
 
 def _search_fallback(
-    result: PlanResult, model: CountingModel, seed: int, wanted: int, clock: Clock
+    result: PlanResult, model: CountingModel, seed: int, wanted: int, job: engine.Hooks
 ) -> list[dict[str, int]]:
     """Up to `wanted` schedules from the rule search; sets result status when none is found."""
     rng = random.Random(f"{seed}:search")
     found: list[dict[str, int]] = []
     for _ in range(min(wanted, MAX_SEARCHES)):
-        out = search(model, rng, budget=clock.left(), cancel=clock.cancel,
-                     progress=lambda f, stage: clock.report(0.8 + 0.2 * f, stage))
+        out = search(model, rng, hooks=job.part(0.8, 1.0))
         if out.status == "found" and out.assignment is not None:
             found.append(out.assignment)
             continue
@@ -213,12 +208,12 @@ def _finish(
     return result
 
 
-def why_none(model: CountingModel, clock: Clock | None = None) -> str:
+def why_none(model: CountingModel, job: engine.Hooks | None = None) -> str:
     """Why a counting model has no valid assignment, in words (the fewest rounds if known)."""
     k = model.rounds
     head = f"no valid assignment of the fixtures to {k} rounds exists"
     try:
-        fewest = model.fewest_rounds(clock.hooks(0.3, 0.4) if clock is not None else None)
+        fewest = model.fewest_rounds(job.part(0.3, 0.4) if job is not None else None)
     except (engine.BudgetExceeded, engine.Cancelled):
         return f"{head} (the fewest rounds needed was not found within the budget)"
     extras = [name for name, present in (

@@ -18,11 +18,7 @@ from collections import defaultdict
 from dataclasses import dataclass
 
 from leaguegrid.core.model import League
-
-
-def norm(name: str | None) -> str:
-    """Case- and space-insensitive key for team and venue names."""
-    return " ".join((name or "").split()).casefold()
+from leaguegrid.core.names import name_key
 
 
 @dataclass(frozen=True)
@@ -116,13 +112,13 @@ class GeneratorRules:
 def generator_rules(league: League) -> GeneratorRules:
     """The generator-only rules a league's Venues sheet and Settings ask for."""
     s = league.settings
-    shared = {norm(c) for c in s.shared}
+    shared = {name_key(c) for c in s.shared}
     caps: list[Capacity] = []
     if "venue" in shared:
         for venue in league.venues.values():
             if venue.pitches <= 1:
                 continue
-            at = [f for f in league.fixtures if norm(f.venue) == norm(venue.name)]
+            at = [f for f in league.fixtures if name_key(f.venue) == name_key(venue.name)]
             if at and not all(f.pitch for f in at):
                 caps.append(Capacity(venue.name, venue.pitches, tuple(f.label for f in at)))
     return GeneratorRules(

@@ -24,7 +24,8 @@ from dataclasses import dataclass, field
 from itertools import pairwise
 
 from leaguegrid.core.model import League, Schedule
-from leaguegrid.scheduling.rules import norm, side_runs, team_sides
+from leaguegrid.core.names import name_key
+from leaguegrid.scheduling.rules import side_runs, team_sides
 
 TERMS = ("balance", "alternation", "spread", "slots", "rest", "travel")
 EARTH_RADIUS_KM = 6371.0088  # mean Earth radius (IUGG)
@@ -204,15 +205,15 @@ def haversine_km(lat1: float, lon1: float, lat2: float, lon2: float) -> float:
 
 def distance_lookup(league: League) -> Callable[[str, str], float | None]:
     """(venue, venue) -> km from the Distances sheet, else from positions; None if unknown."""
-    table = {(norm(a), norm(b)): km for (a, b), km in league.distances.items()}
+    table = {(name_key(a), name_key(b)): km for (a, b), km in league.distances.items()}
     where = {
-        norm(v.name): (v.latitude, v.longitude)
+        name_key(v.name): (v.latitude, v.longitude)
         for v in league.venues.values()
         if v.latitude is not None and v.longitude is not None
     }
 
     def km(a: str, b: str) -> float | None:
-        x, y = norm(a), norm(b)
+        x, y = name_key(a), name_key(b)
         if x == y:
             return 0.0
         if (x, y) in table:

@@ -13,12 +13,11 @@ its limit has tried every option, so its "no schedule" is a proof.
 from __future__ import annotations
 
 import random
-import threading
 import time
-from collections.abc import Callable
 from dataclasses import dataclass, field
 from typing import Literal
 
+from leaguegrid.engine import BudgetExceeded, Cancelled, Hooks
 from leaguegrid.scheduling.constraints import CountingModel
 from leaguegrid.scheduling.rules import (
     GeneratorRules,
@@ -29,7 +28,6 @@ from leaguegrid.scheduling.rules import (
 )
 
 Status = Literal["found", "impossible", "budget", "cancelled"]
-Progress = Callable[[float, str], None]
 
 RESTART_UNIT = 1000  # steps; run i may take RESTART_UNIT x luby(i) steps
 
@@ -59,11 +57,6 @@ class SearchResult:
     steps: int = 0
     restarts: int = 0
     seconds: float = 0.0
-
-
-class _Stop(Exception):
-    def __init__(self, status: Status) -> None:
-        self.status = status
 
 
 class _State:
@@ -289,9 +282,7 @@ def search(
     model: CountingModel,
     rng: random.Random,
     rules: GeneratorRules | None = None,
-    budget: float | None = None,
-    progress: Progress | None = None,
-    cancel: threading.Event | None = None,
+    hooks: Hooks | None = None,
     explain: bool = True,
 ) -> SearchResult:
     """A schedule meeting the counting model and the generator rules, or why there is none.
@@ -300,6 +291,7 @@ def search(
     and where it bites; with `explain`, a search that exhausts every option then tries each
     rule alone (within what is left of the budget) to say which rule cannot hold."""
     started = time.monotonic()
+    hooks = hooks or Hooks()
     rules = model.generator if rules is None else rules
     if model.contradictions:
         return SearchResult("impossible", reasons=list(model.contradictions))
@@ -307,16 +299,16 @@ def search(
     if proofs:
         return SearchResult("impossible", reasons=proofs,
                             seconds=time.monotonic() - started)
-    deadline = None if budget is None else started + budget
     state = _State(model, rules)
     steps = restarts = 0
     deepest = 0
     while True:
         try:
             limit = RESTART_UNIT * luby(restarts + 1)
-            found, used, depth = _run(state, rng, limit, deadline, cancel, progress, deepest)
-        except _Stop as stop:
-            return SearchResult(stop.status, steps=steps, restarts=restarts,
+            found, used, depth = _run(state, rng, limit, hooks, deepest)
+        except (Cancelled, BudgetExceeded) as stop:
+            status = "cancelled" if isinstance(stop, Cancelled) else "budget"
+            return SearchResult(status, steps=steps, restarts=restarts,
                                 seconds=time.monotonic() - started)
         steps += used
         deepest = max(deepest, depth)
@@ -335,7 +327,7 @@ def search(
     else:
         reasons = [f"no schedule meets every rule together ({tried})"]
         if explain:
-            reasons += _isolate(model, rules, rng, deadline, cancel)
+            reasons += _isolate(model, rules, rng, hooks)
     return SearchResult("impossible", reasons=reasons, steps=steps, restarts=restarts,
                         seconds=time.monotonic() - started)
 
@@ -344,17 +336,14 @@ def _isolate(
     model: CountingModel,
     rules: GeneratorRules,
     rng: random.Random,
-    deadline: float | None,
-    cancel: threading.Event | None,
+    hooks: Hooks,
 ) -> list[str]:
     """Try each active rule on its own: which ones cannot hold even alone."""
     alone_fail, unknown = [], []
     names = rules.names
     for pos, name in enumerate(names):
-        share = None
-        if deadline is not None:
-            share = max(0.0, (deadline - time.monotonic()) / (len(names) - pos) / 2)
-        sub = search(model, rng, rules.only(name), budget=share, cancel=cancel, explain=False)
+        part = hooks.part(share=1 / (len(names) - pos) / 2)
+        sub = search(model, rng, rules.only(name), hooks=part, explain=False)
         if sub.status == "impossible":
             alone_fail.append(name)
         elif sub.status != "found":
@@ -373,15 +362,13 @@ def _run(
     state: _State,
     rng: random.Random,
     limit: int,
-    deadline: float | None,
-    cancel: threading.Event | None,
-    progress: Progress | None,
+    hooks: Hooks,
     deepest: int,
 ) -> tuple[dict[str, int] | None, int, int]:
     """One run from scratch: (schedule or None, steps used, deepest depth reached).
 
     Steps used above `limit` means the run was cut short; otherwise it tried everything."""
-    _poll(deadline, cancel)
+    hooks.check()
     state.reset()
     n = state.n
     tiebreak = [rng.random() for _ in range(n)]
@@ -414,14 +401,14 @@ def _run(
             if steps > limit:
                 return None, steps, deepest
             if steps % 256 == 0:
-                _poll(deadline, cancel)
+                hooks.check()
             if state.assign(frame[0], r):
                 push = True
                 depth = n - state.unassigned
                 if depth > deepest:
                     deepest = depth
-                    if progress is not None and n:
-                        progress(deepest / n, "search")
+                    if n:
+                        hooks.report(deepest / n, "search")
                 break
         if not push:
             return None, steps, deepest
@@ -435,9 +422,3 @@ def _ordered(state: _State, i: int, rng: random.Random) -> list[int]:
         values.sort(key=lambda r: state.tot[r])
     return values
 
-
-def _poll(deadline: float | None, cancel: threading.Event | None) -> None:
-    if cancel is not None and cancel.is_set():
-        raise _Stop("cancelled")
-    if deadline is not None and time.monotonic() > deadline:
-        raise _Stop("budget")

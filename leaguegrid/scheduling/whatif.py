@@ -13,7 +13,6 @@ from __future__ import annotations
 
 import datetime as dt
 import difflib
-import threading
 from collections.abc import Callable
 from dataclasses import dataclass, field, replace
 from itertools import product
@@ -22,9 +21,8 @@ import networkx as nx
 
 from leaguegrid import engine
 from leaguegrid.core.model import Blocked, Fixture, League, Reason
-from leaguegrid.scheduling.clock import Clock, Progress
+from leaguegrid.core.names import name_key
 from leaguegrid.scheduling.constraints import CountingModel, build_model
-from leaguegrid.scheduling.rules import norm
 
 Edge = tuple[str, str]
 GraphBuilder = Callable[[League], nx.Graph]
@@ -196,12 +194,12 @@ def _fewest_after(model: CountingModel, variant: CountingModel, base_min: int | 
 
 def waive_all(
     model: CountingModel,
-    hooks_for: Callable[[float, float], engine.Hooks] | None = None,
+    job: engine.Hooks | None = None,
     min_rounds: bool = True,
 ) -> tuple[int, int | None, list[Waived], bool]:
     """(assignments, fewest rounds, every reason waived in turn ranked by gain, complete)."""
     def hooks(lo: float, hi: float) -> engine.Hooks | None:
-        return hooks_for(lo, hi) if hooks_for is not None else None
+        return job.part(lo, hi) if job is not None else None
 
     base = model.count(hooks(0.0, 0.05))
     base_min = model.fewest_rounds(hooks(0.05, 0.1)) if min_rounds else None
@@ -234,25 +232,23 @@ def whatif(
     graph: nx.Graph,
     rounds: int,
     add: tuple[str, str] | None = None,
-    budget: float | None = None,
-    progress: Progress | None = None,
-    cancel: threading.Event | None = None,
+    hooks: engine.Hooks | None = None,
 ) -> WhatIf:
     """The whatif report for K rounds: every reason ranked by gain, and an optional new clash
     between two names (fixture, team or venue; 'team: X' qualifies an ambiguous name)."""
-    clock = Clock(budget, progress, cancel)
+    hooks = hooks or engine.Hooks()
     model = build_model(league, graph, rounds)
     added = None
     if add is not None:
         added = Added(add[0], add[1], new_edges(league, model.clashes, *add), None, None, None)
     try:
-        base, base_min, reasons, complete = waive_all(model, clock.hooks)
+        base, base_min, reasons, complete = waive_all(model, hooks)
     except (engine.BudgetExceeded, engine.Cancelled):
         return WhatIf(rounds, None, None, [], added, complete=False)
     report = WhatIf(rounds, base, base_min, reasons, added, complete)
     if added is not None and complete:
         try:
-            _fill_added(model, added, base, base_min, clock.hooks(0.95, 1.0))
+            _fill_added(model, added, base, base_min, hooks.part(0.95, 1.0))
         except (engine.BudgetExceeded, engine.Cancelled):
             report.complete = False
     return report
@@ -292,11 +288,11 @@ def resolve(league: League, name: str) -> list[str]:
         wanted, text = [kind.strip().lower()], rest.strip()
     else:
         wanted, text = list(kinds), name.strip()
-    key = norm(text)
+    key = name_key(text)
     found = {
-        "fixture": [f.label for f in league.fixtures if norm(f.label) == key],
-        "team": [f.label for f in league.fixtures if key in {norm(t) for t in f.teams}],
-        "venue": [f.label for f in league.fixtures if norm(f.venue) == key],
+        "fixture": [f.label for f in league.fixtures if name_key(f.label) == key],
+        "team": [f.label for f in league.fixtures if key in {name_key(t) for t in f.teams}],
+        "venue": [f.label for f in league.fixtures if name_key(f.venue) == key],
     }
     hits = [k for k in wanted if found[k]]
     if len(hits) > 1:
@@ -355,10 +351,10 @@ def round_of(league: League, when: int | dt.date) -> int:
 
 def division_teams(league: League, division: str) -> list[str]:
     """The teams of a division, from the Teams sheet and the fixtures, first seen first."""
-    key = norm(division)
-    out = [t.name for t in league.teams.values() if norm(t.division) == key]
+    key = name_key(division)
+    out = [t.name for t in league.teams.values() if name_key(t.division) == key]
     for f in league.fixtures:
-        if norm(f.division) == key:
+        if name_key(f.division) == key:
             out += list(f.teams)
     return list(dict.fromkeys(out))
 
@@ -370,22 +366,22 @@ def joining_fixtures(league: League, team: str, division: str, venue: str | None
     opponents = division_teams(league, division)
     if not opponents:
         raise ValueError(f"division {division!r} has no teams")
-    if norm(team) in {norm(t) for t in opponents} or any(
-        norm(team) in {norm(t) for t in f.teams} for f in league.fixtures
+    if name_key(team) in {name_key(t) for t in opponents} or any(
+        name_key(team) in {name_key(t) for t in f.teams} for f in league.fixtures
     ):
         raise ValueError(f"team {team!r} already plays in this league")
-    grounds = {norm(t.name): t.venue for t in league.teams.values()}
-    grounds[norm(team)] = venue
-    labels = {norm(f.label) for f in league.fixtures}
+    grounds = {name_key(t.name): t.venue for t in league.teams.values()}
+    grounds[name_key(team)] = venue
+    labels = {name_key(f.label) for f in league.fixtures}
     out = []
     for leg in range(1, max(1, league.settings.legs) + 1):
         for i, opp in enumerate(opponents):
             home, away = (team, opp) if (i + leg) % 2 == 1 else (opp, team)
             label = f"{home} v {away}"
-            if norm(label) in labels:
+            if name_key(label) in labels:
                 label = f"{label} ({leg})"
-            labels.add(norm(label))
-            out.append(Fixture(label, home=home, away=away, venue=grounds.get(norm(home)),
+            labels.add(name_key(label))
+            out.append(Fixture(label, home=home, away=away, venue=grounds.get(name_key(home)),
                                division=division, leg=leg))
     return out
 

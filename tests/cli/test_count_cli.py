@@ -74,7 +74,7 @@ def test_count_rejects_more_rounds_than_the_rounds_sheet(cli, workbook) -> None:
     })
     code, _, err = cli("count", str(book), "--rounds", "1..3")
     assert code == 2
-    assert "the Rounds sheet lists 2 rounds; --rounds 3 asks for more" in err
+    assert "--rounds: the Rounds sheet lists 2 rounds; 3 asks for more" in err
 
 
 def test_count_usage_error_on_bad_range(cli, round_robin) -> None:

@@ -73,7 +73,7 @@ def test_plan_more_rounds_than_the_rounds_sheet_is_a_usage_error(cli, workbook) 
     })
     code, _, err = cli("plan", str(book), "--rounds", "3")
     assert code == 2
-    assert "the Rounds sheet lists 2 rounds; --rounds 3 asks for more" in err
+    assert "--rounds: the Rounds sheet lists 2 rounds; 3 asks for more" in err
 
 
 def _nx_count(edges: list[tuple[str, str]], nodes: list[str], k: int) -> int:

@@ -22,6 +22,7 @@ from leaguegrid.io.write.calendar_xlsx import (
     sheet_title,
     write_calendar_xlsx,
 )
+from leaguegrid.scheduling.dates import date_schedule
 
 REASONS = ("Family of Ilse B. (two children)", "Coach Tomas R. runs both sides")
 TEAMS = {
@@ -89,7 +90,7 @@ def summary_for(league: League, schedule: Schedule) -> CalendarSummary:
 
 def written(tmp_path: Path, league: League, schedule: Schedule) -> Path:
     out = tmp_path / "calendar.xlsx"
-    write_calendar_xlsx(out, league, schedule, summary_for(league, schedule))
+    write_calendar_xlsx(out, date_schedule(league, schedule), summary_for(league, schedule))
     return out
 
 
@@ -216,7 +217,7 @@ def test_summary_with_bounds_and_an_estimate(tmp_path):
         league, schedule, clashes=41, min_rounds=None, min_rounds_bounds=(5, 6),
         assignments_estimate="about 3.1e12 (95% range 2.8e12 to 3.4e12, sampling)",
     )
-    wb = build_calendar_workbook(league, schedule, summary)
+    wb = build_calendar_workbook(date_schedule(league, schedule), summary)
     values = {r[0]: r[1] for r in wb["Summary"].iter_rows(min_row=2, values_only=True)}
     assert values["Fewest rounds"] == "not proven: at least 5, at most 6"
     assert values["Valid round assignments for 6 rounds (estimate)"] == (
@@ -280,7 +281,7 @@ def test_export_never_overwrites_the_input(tmp_path):
     source.write_bytes(b"the coordinator's workbook")
     league, schedule = make_league(source=str(source))
     with pytest.raises(InputOverwriteError):
-        write_calendar_xlsx(source, league, schedule, summary_for(league, schedule))
+        write_calendar_xlsx(source, date_schedule(league, schedule), summary_for(league, schedule))
     assert source.read_bytes() == b"the coordinator's workbook"
 
 
@@ -295,7 +296,7 @@ def test_failed_save_leaves_no_half_file(tmp_path, monkeypatch):
 
     monkeypatch.setattr(openpyxl.Workbook, "save", broken_save)
     with pytest.raises(OSError, match="disk full"):
-        write_calendar_xlsx(out, league, schedule, summary_for(league, schedule))
+        write_calendar_xlsx(out, date_schedule(league, schedule), summary_for(league, schedule))
     assert out.read_bytes() == b"last week's calendar"
     assert [p.name for p in tmp_path.iterdir()] == ["calendar.xlsx"]
 
@@ -356,7 +357,7 @@ def test_demo_league_calendar_round_trip(tmp_path, name):
     summary = CalendarSummary.for_schedule(
         league, schedule, clashes=graph.number_of_edges(), min_rounds=DEMO_ROUNDS[name]
     )
-    write_calendar_xlsx(out, league, schedule, summary)
+    write_calendar_xlsx(out, date_schedule(league, schedule), summary)
     wb = openpyxl.load_workbook(out)
     rows = rows_of(wb["Calendar"])
     assert sorted(r["Fixture"] for r in rows) == sorted(f.label for f in league.fixtures)

@@ -11,6 +11,7 @@ import pytest
 from leaguegrid.core.model import Fixture, League, RoundInfo, Schedule, Settings
 from leaguegrid.io.write.atomic import InputOverwriteError
 from leaguegrid.io.write.csv_out import protect_text, write_schedule_csv
+from leaguegrid.scheduling.dates import date_schedule
 
 
 def league_and_schedule(source: str = "") -> tuple[League, Schedule]:
@@ -37,7 +38,7 @@ def league_and_schedule(source: str = "") -> tuple[League, Schedule]:
 def test_rows_exact(tmp_path):
     league, schedule = league_and_schedule()
     out = tmp_path / "schedule.csv"
-    write_schedule_csv(out, league, schedule)
+    write_schedule_csv(out, date_schedule(league, schedule))
     raw = out.read_bytes()
     assert raw.startswith(b"\xef\xbb\xbf")  # UTF-8 BOM, so spreadsheets read accents right
     with out.open(encoding="utf-8-sig", newline="") as fh:
@@ -59,7 +60,7 @@ def test_rows_exact(tmp_path):
 def test_every_fixture_once_and_no_team_twice_in_a_round(tmp_path):
     league, schedule = league_and_schedule()
     out = tmp_path / "schedule.csv"
-    write_schedule_csv(out, league, schedule)
+    write_schedule_csv(out, date_schedule(league, schedule))
     with out.open(encoding="utf-8-sig", newline="") as fh:
         rows = list(csv.DictReader(fh))
     labels = [r["Fixture"].removeprefix("'") for r in rows]
@@ -79,7 +80,7 @@ def test_numbers_only_rounds_leave_date_and_time_blank(tmp_path):
     league, schedule = league_and_schedule()
     league.rounds, league.rounds_fixed = [], False
     out = tmp_path / "s.csv"
-    write_schedule_csv(out, league, schedule)
+    write_schedule_csv(out, date_schedule(league, schedule))
     with out.open(encoding="utf-8-sig", newline="") as fh:
         rows = list(csv.DictReader(fh))
     assert {(r["Round"], r["Date"], r["Time"]) for r in rows} == {("1", "", ""), ("2", "", "")}
@@ -108,7 +109,7 @@ def test_failure_mid_write_leaves_the_old_file(tmp_path, monkeypatch):
 
     monkeypatch.setattr(csv, "writer", BreaksOnThirdRow)
     with pytest.raises(RuntimeError, match="interrupted"):
-        write_schedule_csv(out, league, schedule)
+        write_schedule_csv(out, date_schedule(league, schedule))
     assert out.read_text() == "old\n"
     assert [p.name for p in tmp_path.iterdir()] == ["s.csv"]
 
@@ -118,7 +119,7 @@ def test_never_overwrites_the_input(tmp_path):
     source.write_text("Fixture,Home,Away\n")
     league, schedule = league_and_schedule(source=str(source))
     with pytest.raises(InputOverwriteError):
-        write_schedule_csv(source, league, schedule)
+        write_schedule_csv(source, date_schedule(league, schedule))
     assert source.read_text() == "Fixture,Home,Away\n"
 
 
@@ -134,7 +135,7 @@ def test_demo_league_round_trip(tmp_path):
     graph = build_clash_graph(league)
     schedule = plan(league, graph, 6, seed=9).schedule
     out = tmp_path / "clubday.csv"
-    write_schedule_csv(out, league, schedule)
+    write_schedule_csv(out, date_schedule(league, schedule))
     with out.open(encoding="utf-8-sig", newline="") as fh:
         rows = list(csv.DictReader(fh))
     assert sorted(r["Fixture"] for r in rows) == sorted(f.label for f in league.fixtures)

@@ -13,9 +13,10 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from leaguegrid.core.model import ClashRow, Fixture, League, RoundInfo, Schedule, Settings, Team
+from leaguegrid.core.wording import CAUTION
 from leaguegrid.io.write.atomic import InputOverwriteError
-from leaguegrid.io.write.calendar_xlsx import CAUTION
 from leaguegrid.io.write.ics import IcsError, escape_text, fixture_uids, fold_line, write_ics_files
+from leaguegrid.scheduling.dates import date_schedule
 
 NOW = dt.datetime(2025, 8, 1, 12, 0, tzinfo=dt.UTC)
 LATER = dt.datetime(2025, 8, 2, 9, 30, tzinfo=dt.UTC)
@@ -122,7 +123,7 @@ def clubday_league(day: dt.date = SLOT_DAY) -> tuple[League, Schedule]:
 
 
 def export(folder: Path, league: League, schedule: Schedule, now=NOW) -> dict[str, dict]:
-    paths = write_ics_files(folder, league, schedule, now=now)
+    paths = write_ics_files(folder, date_schedule(league, schedule, now=now))
     return {p.name: parse(p.read_bytes()) for p in paths}
 
 
@@ -273,7 +274,7 @@ def test_lines_folded_at_75_octets_and_text_escaped(tmp_path):
     league.fixtures[0].label = long
     league.fixtures[0].venue = "Line one\nline two"
     schedule.assignment[long] = schedule.assignment.pop(old)
-    paths = write_ics_files(tmp_path, league, schedule, now=NOW)
+    paths = write_ics_files(tmp_path, date_schedule(league, schedule, now=NOW))
     for path in paths:
         data = path.read_bytes()
         assert data.endswith(b"\r\n")
@@ -316,7 +317,7 @@ def test_escape_fold_round_trip(text):
 
 def test_caution_and_no_clash_reasons(tmp_path):
     league, schedule = season_league()
-    for path in write_ics_files(tmp_path, league, schedule, now=NOW):
+    for path in write_ics_files(tmp_path, date_schedule(league, schedule, now=NOW)):
         data = path.read_bytes()
         cal = parse(data)
         assert unescape(cal["props"]["X-WR-CALDESC"][1]) == CAUTION
@@ -329,7 +330,7 @@ def test_rounds_without_dates_cannot_be_exported(tmp_path):
     league, schedule = season_league()
     league.settings.start_date = None
     with pytest.raises(IcsError) as err:
-        write_ics_files(tmp_path / "out", league, schedule, now=NOW)
+        write_ics_files(tmp_path / "out", date_schedule(league, schedule, now=NOW))
     assert str(err.value) == (
         "rounds without a date cannot be exported to iCalendar (round 1, 2, 3, 4, 5, 6): give "
         "the Rounds sheet a Date for every round, or set Start date in Settings"
@@ -342,7 +343,7 @@ def test_never_overwrites_the_input(tmp_path):
     source.write_bytes(b"not really a league")
     league, schedule = season_league(source=str(source))
     with pytest.raises(InputOverwriteError):
-        write_ics_files(tmp_path, league, schedule, now=NOW)
+        write_ics_files(tmp_path, date_schedule(league, schedule, now=NOW))
     assert source.read_bytes() == b"not really a league"
     assert [p.name for p in tmp_path.iterdir()] == ["team-=Hawks.ics"]
 

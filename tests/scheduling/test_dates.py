@@ -9,12 +9,12 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
+from leaguegrid.core.dated import natural_key
 from leaguegrid.core.model import Fixture, League, RoundInfo, Schedule, Settings
 from leaguegrid.scheduling.dates import (
     DatesError,
     dated_fixtures,
     league_time_zone,
-    natural_key,
     round_dates,
 )
 

@@ -3,6 +3,7 @@ reported, the search as fallback, and impossibility named."""
 
 from __future__ import annotations
 
+import itertools
 import math
 import random
 from collections import Counter
@@ -164,7 +165,8 @@ def test_contradiction_and_generator_proof_are_impossible():
 
 def test_budget_spent_is_its_own_outcome():
     lg = make_league(round_robin(FOUR))
-    out = plan(lg, textbook_graph(lg), 4, seed=1, budget=0.0)
+    out = plan(lg, textbook_graph(lg), 4, seed=1,
+               hooks=engine.Hooks(budget=0, clock=itertools.count().__next__))
     assert out.status == "budget" and out.schedule is None
     assert out.reasons == ["the exact count did not finish within its share of the budget, so "
                            "no uniform draw was made"]
@@ -178,7 +180,7 @@ def test_count_beyond_its_share_hands_over_to_the_search(monkeypatch):
     lg = make_league(round_robin(FOUR), settings=Settings(max_home_run=2))
     g = textbook_graph(lg)
     monkeypatch.setattr(engine, "count_assignments", _stopped)
-    out = plan(lg, g, 3, seed=2, budget=30)
+    out = plan(lg, g, 3, seed=2, hooks=engine.Hooks(budget=30))
     assert out.status == "found" and out.schedule.method == "search"
     assert out.assignments is None and out.draws == 0
     assert out.schedule.notes == [
@@ -193,7 +195,7 @@ def test_draws_beyond_their_share_hand_over_to_the_search(monkeypatch):
     lg = make_league(round_robin(FOUR))
     g = textbook_graph(lg)
     monkeypatch.setattr(engine, "sample_assignments", _stopped)
-    out = plan(lg, g, 3, seed=2, budget=30)
+    out = plan(lg, g, 3, seed=2, hooks=engine.Hooks(budget=30))
     assert out.status == "found" and out.schedule.method == "search"
     # K4 has 1 one-factorization (OEIS A000438), in 3! orders of its rounds
     assert out.assignments == 1 * 6

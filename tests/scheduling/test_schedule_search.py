@@ -3,6 +3,7 @@ reported as impossible naming the rule, and a stop at the budget is its own outc
 
 from __future__ import annotations
 
+import itertools
 import random
 import threading
 from collections import Counter
@@ -11,6 +12,7 @@ import pytest
 from schedule_helpers import brute, fx, make_league, round_robin, textbook_graph
 
 from leaguegrid.core.model import Blocked, Settings, Tie, Venue
+from leaguegrid.engine import Hooks
 from leaguegrid.scheduling.check import ScheduleChecker
 from leaguegrid.scheduling.constraints import build_model
 from leaguegrid.scheduling.rules import check_generator
@@ -196,7 +198,7 @@ def test_same_seed_same_schedule():
 
 def test_budget_exhausted_is_its_own_outcome():
     lg = make_league(round_robin(SIX, legs=2), settings=Settings(legs=2, max_home_run=2))
-    _, out = run(lg, 10, budget=0.0)
+    _, out = run(lg, 10, hooks=Hooks(budget=0, clock=itertools.count().__next__))
     assert out.status == "budget"
     assert out.assignment is None and out.reasons == []
 
@@ -205,14 +207,14 @@ def test_cancel_is_its_own_outcome():
     lg = make_league(round_robin(SIX, legs=2), settings=Settings(legs=2, max_home_run=2))
     stop = threading.Event()
     stop.set()
-    _, out = run(lg, 10, cancel=stop)
+    _, out = run(lg, 10, hooks=Hooks(cancel=stop))
     assert out.status == "cancelled"
 
 
 def test_progress_rises_to_one_when_found():
     lg = make_league(round_robin(SIX), settings=Settings(max_home_run=2))
     seen = []
-    _, out = run(lg, 5, progress=lambda f, stage: seen.append((f, stage)))
+    _, out = run(lg, 5, hooks=Hooks(lambda f, stage: seen.append((f, stage))))
     assert out.status == "found"
     assert seen == sorted(seen) and seen[-1] == (1.0, "search")
 

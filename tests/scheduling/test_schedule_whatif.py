@@ -4,6 +4,7 @@ chromatic_polynomial (deletion-contraction, small graphs) and brute-force enumer
 from __future__ import annotations
 
 import datetime as dt
+import itertools
 import json
 
 import networkx as nx
@@ -11,6 +12,7 @@ import pytest
 from schedule_helpers import brute, fx, make_league, round_robin, textbook_graph
 
 from leaguegrid.core.model import Blocked, ClashRow, Reason, RoundInfo, Settings, Split, Tie
+from leaguegrid.engine import Hooks
 from leaguegrid.scheduling.constraints import build_model
 from leaguegrid.scheduling.whatif import (
     count_variant,
@@ -251,7 +253,8 @@ def test_json_shape():
 
 def test_budget_spent_marks_the_report_incomplete():
     lg = coach_league()
-    report = whatif(lg, textbook_graph(lg), 4, budget=0.0)
+    report = whatif(lg, textbook_graph(lg), 4,
+                    hooks=Hooks(budget=0, clock=itertools.count().__next__))
     assert not report.complete
     assert report.to_json()["assignments"] is None
 

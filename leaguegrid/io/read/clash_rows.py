@@ -7,9 +7,10 @@ import re
 from dataclasses import dataclass
 
 from leaguegrid.core.model import ClashRow, Fixture, Split, Tie
+from leaguegrid.core.names import suggestion
 from leaguegrid.io.read.columns import Row, Table, require
 from leaguegrid.io.read.context import ReadContext
-from leaguegrid.io.read.names import NameBook, suggestion
+from leaguegrid.io.read.names import NameBook
 from leaguegrid.io.read.problems import Place
 
 PAIR_COLUMNS = {"first": "First", "second": "Second", "reason": "Reason"}

@@ -6,7 +6,7 @@ from __future__ import annotations
 import difflib
 from dataclasses import dataclass, field
 
-from leaguegrid.io.read.names import name_key
+from leaguegrid.core.names import name_key
 from leaguegrid.io.read.problems import Place, Report
 from leaguegrid.io.read.sheets import RawSheet, cell_name
 from leaguegrid.io.read.values import cell_text

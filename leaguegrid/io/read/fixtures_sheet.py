@@ -6,9 +6,9 @@ from collections import Counter
 from dataclasses import dataclass, field
 
 from leaguegrid.core.model import Fixture
+from leaguegrid.core.names import name_key
 from leaguegrid.io.read.columns import Row, Table, require
 from leaguegrid.io.read.context import ReadContext
-from leaguegrid.io.read.names import name_key
 from leaguegrid.io.read.problems import Place
 from leaguegrid.io.read.roundrobin import round_robin
 from leaguegrid.io.read.rounds_sheet import round_cell

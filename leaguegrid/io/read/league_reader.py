@@ -8,6 +8,7 @@ from pathlib import Path
 
 from leaguegrid.clashes.graph import build_clash_graph
 from leaguegrid.core.model import Fixture, League, LoadResult
+from leaguegrid.core.names import name_key, suggestion
 from leaguegrid.io.read.clash_rows import (
     PAIR_COLUMNS,
     Resolver,
@@ -28,7 +29,6 @@ from leaguegrid.io.read.fixtures_sheet import (
     read_fixtures,
     read_teams,
 )
-from leaguegrid.io.read.names import name_key, suggestion
 from leaguegrid.io.read.problems import Place, Report
 from leaguegrid.io.read.rounds_sheet import ROUNDS_COLUMNS, RoundLookup, read_rounds
 from leaguegrid.io.read.rules_sheets import (

@@ -1,32 +1,9 @@
-"""Name matching: case- and space-insensitive keys, closest-name hints, canonical spellings."""
+"""Canonical spellings of the names a workbook uses (matched by the one name key)."""
 
 from __future__ import annotations
 
-import difflib
-import unicodedata
-from collections.abc import Iterable
-
+from leaguegrid.core.names import name_key
 from leaguegrid.io.read.problems import Place, Report
-
-
-def name_key(text: str) -> str:
-    """The matching key of a name: Unicode-normalised, case-folded, every space removed."""
-    return "".join(unicodedata.normalize("NFKC", text).casefold().split())
-
-
-def closest(name: str, candidates: Iterable[str], cutoff: float = 0.6) -> str | None:
-    """The candidate spelled most like `name` (difflib ratio on keys), or None if none is close."""
-    by_key: dict[str, str] = {}
-    for c in candidates:
-        by_key.setdefault(name_key(c), c)
-    found = difflib.get_close_matches(name_key(name), list(by_key), n=1, cutoff=cutoff)
-    return by_key[found[0]] if found else None
-
-
-def suggestion(name: str, candidates: Iterable[str]) -> str:
-    """'; did you mean 'X'?' for the closest candidate, or '' when none is close."""
-    best = closest(name, candidates)
-    return f"; did you mean '{best}'?" if best else ""
 
 
 class NameBook:

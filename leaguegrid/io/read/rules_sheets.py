@@ -5,10 +5,10 @@ from __future__ import annotations
 import datetime as dt
 
 from leaguegrid.core.model import Blocked
+from leaguegrid.core.names import suggestion
 from leaguegrid.io.read.clash_rows import Resolver
 from leaguegrid.io.read.columns import Row, Table, require
 from leaguegrid.io.read.context import ReadContext
-from leaguegrid.io.read.names import suggestion
 from leaguegrid.io.read.problems import Place
 from leaguegrid.io.read.rounds_sheet import round_cell
 from leaguegrid.io.read.values import date_advice, to_date, to_number, whole_number

@@ -6,8 +6,8 @@ import zoneinfo
 from dataclasses import dataclass, field, replace
 
 from leaguegrid.core.model import Settings
+from leaguegrid.core.names import name_key, suggestion
 from leaguegrid.io.read.columns import Row, Table, require
-from leaguegrid.io.read.names import name_key, suggestion
 from leaguegrid.io.read.problems import Place, Report
 from leaguegrid.io.read.values import (
     cell_text,

@@ -32,16 +32,17 @@ from openpyxl.styles import Alignment, Font
 from openpyxl.utils import get_column_letter
 from openpyxl.worksheet.worksheet import Worksheet
 
+from leaguegrid.core.dated import (
+    DatedFixture,
+    DatedSchedule,
+    club_teams,
+    natural_key,
+    team_names,
+)
 from leaguegrid.core.model import League, Schedule
+from leaguegrid.core.wording import CAUTION
 from leaguegrid.io.write.atomic import StrPath, atomic_write, refuse_overwriting_input
 from leaguegrid.io.write.csv_out import FORMULA_START
-from leaguegrid.scheduling.dates import DatedFixture, dated_fixtures, natural_key
-
-CAUTION = (
-    "LeagueGrid counts and proposes schedules. Before publishing, a coordinator checks every "
-    "schedule against the association's rules (rest between games for juniors, heat, lighting, "
-    "travel) and local regulations."
-)
 
 CALENDAR_SHEET = "Calendar"
 SUMMARY_SHEET = "Summary"
@@ -199,24 +200,6 @@ def _venue_row(row: DatedFixture) -> list[object]:
     return [r.number, r.date, r.time, f.pitch, f.label, f.home, f.away, f.division]
 
 
-def _team_names(league: League) -> list[str]:
-    """Every team: those of the Teams sheet and those named by fixtures."""
-    names = set(league.teams)
-    for f in league.fixtures:
-        names.update(f.teams)
-    return sorted(names, key=natural_key)
-
-
-def _clubs(league: League, teams: Sequence[str]) -> dict[str, set[str]]:
-    """Club name -> its teams (Team.club), for teams that name a club."""
-    clubs: dict[str, set[str]] = {}
-    for name in teams:
-        team = league.teams.get(name)
-        if team is not None and team.club:
-            clubs.setdefault(team.club, set()).add(name)
-    return dict(sorted(clubs.items(), key=lambda kv: natural_key(kv[0])))
-
-
 def _summary_rows(league: League, schedule: Schedule, s: CalendarSummary) -> list[list[object]]:
     """The Summary sheet: numbers, rules, seed, notes, caution; clash reasons only counted."""
     if s.min_rounds is not None:
@@ -269,11 +252,9 @@ def _add_sheet(
     return ws
 
 
-def build_calendar_workbook(
-    league: League, schedule: Schedule, summary: CalendarSummary
-) -> Workbook:
+def build_calendar_workbook(dated: DatedSchedule, summary: CalendarSummary) -> Workbook:
     """The calendar workbook in memory (written by write_calendar_xlsx)."""
-    rows = dated_fixtures(league, schedule)
+    league, schedule, rows = dated.league, dated.schedule, dated.rows
     by_date = sorted(rows, key=_date_order)
     wb = Workbook()
     wb.remove(wb.active)
@@ -287,7 +268,7 @@ def build_calendar_workbook(
         value_cell.alignment = Alignment(
             wrap_text=True, vertical="top", horizontal=value_cell.alignment.horizontal
         )
-    teams = _team_names(league)
+    teams = team_names(league)
     for team in teams:
         mine = [r for r in by_date if team in r.fixture.teams]
         _add_sheet(wb, taken, team, TEAM_COLUMNS, (_team_row(team, r) for r in mine))
@@ -295,21 +276,16 @@ def build_calendar_workbook(
     for venue in venues:
         here = [r for r in by_date if r.fixture.venue == venue]
         _add_sheet(wb, taken, f"Venue {venue}", VENUE_COLUMNS, (_venue_row(r) for r in here))
-    for club, members in _clubs(league, teams).items():
+    for club, members in club_teams(league, teams).items():
         theirs = [r for r in by_date if members.intersection(r.fixture.teams)]
         _add_sheet(wb, taken, f"Club {club}", LEAGUE_COLUMNS, (_league_row(r) for r in theirs))
     wb.active = 0
     return wb
 
 
-def write_calendar_xlsx(
-    path: StrPath,
-    league: League,
-    schedule: Schedule,
-    summary: CalendarSummary,
-) -> None:
+def write_calendar_xlsx(path: StrPath, dated: DatedSchedule, summary: CalendarSummary) -> None:
     """Write the calendar workbook to `path` atomically; never over the league's own file."""
-    refuse_overwriting_input(path, [league.source])
-    wb = build_calendar_workbook(league, schedule, summary)
+    refuse_overwriting_input(path, [dated.league.source])
+    wb = build_calendar_workbook(dated, summary)
     with atomic_write(path, "wb") as handle:
         wb.save(handle)

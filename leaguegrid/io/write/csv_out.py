@@ -11,9 +11,8 @@ from __future__ import annotations
 import csv
 import datetime as dt
 
-from leaguegrid.core.model import League, Schedule
+from leaguegrid.core.dated import DatedFixture, DatedSchedule
 from leaguegrid.io.write.atomic import StrPath, atomic_write, refuse_overwriting_input
-from leaguegrid.scheduling.dates import DatedFixture, dated_fixtures
 
 FORMULA_START = ("=", "+", "-", "@", "\t", "\r")
 CSV_COLUMNS = ("Round", "Date", "Time", "Fixture", "Home", "Away", "Venue", "Pitch", "Division")
@@ -33,10 +32,10 @@ def _csv_row(row: DatedFixture) -> list[str]:
     return [str(r.number), date, time, *(protect_text(t) for t in texts)]
 
 
-def write_schedule_csv(path: StrPath, league: League, schedule: Schedule) -> None:
+def write_schedule_csv(path: StrPath, dated: DatedSchedule) -> None:
     """Write the schedule as UTF-8 CSV (with a BOM so spreadsheets read accents right)."""
-    refuse_overwriting_input(path, [league.source])
-    rows = dated_fixtures(league, schedule)
+    refuse_overwriting_input(path, [dated.league.source])
+    rows = dated.rows
     with atomic_write(path, "w", encoding="utf-8-sig", newline="") as handle:
         writer = csv.writer(handle)
         writer.writerow(CSV_COLUMNS)

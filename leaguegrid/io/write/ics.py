@@ -30,15 +30,11 @@ import re
 from collections.abc import Iterable, Sequence
 from pathlib import Path
 
-from leaguegrid.core.model import Fixture, League, RoundInfo, Schedule
+from leaguegrid.core.dated import DatedFixture, DatedSchedule, club_teams, team_names
+from leaguegrid.core.model import Fixture, League, RoundInfo
+from leaguegrid.core.names import name_key
+from leaguegrid.core.wording import CAUTION
 from leaguegrid.io.write.atomic import ExportError, StrPath, atomic_write, refuse_overwriting_input
-from leaguegrid.io.write.calendar_xlsx import CAUTION
-from leaguegrid.scheduling.dates import (
-    DatedFixture,
-    dated_fixtures,
-    league_time_zone,
-    natural_key,
-)
 
 PRODID = "-//LeagueGrid//LeagueGrid calendar export//EN"
 UID_DOMAIN = "leaguegrid.invalid"
@@ -77,11 +73,6 @@ def fold_line(line: str) -> str:
     return "\r\n".join(pieces)
 
 
-def _norm(text: str | None) -> str:
-    """A name as the workbook matches it: spaces collapsed, case folded."""
-    return " ".join((text or "").split()).casefold()
-
-
 def _uid(parts: Iterable[str]) -> str:
     digest = hashlib.sha256("\x1f".join(parts).encode("utf-8")).hexdigest()[:32]
     return f"{digest}@{UID_DOMAIN}"
@@ -91,19 +82,20 @@ def fixture_uids(league: League) -> dict[str, str]:
     """Fixture label -> UID from stable keys: league, home and away (the direction tells the
     return leg from the first); the label where a fixture has no teams or a pairing repeats in
     the same direction. Not the leg number: the reader numbers legs in sheet order."""
-    league_key = _norm(league.settings.league or league.name)
+    league_key = name_key(league.settings.league or league.name)
 
     def key(f: Fixture) -> tuple[str, ...]:
         if f.teams:
-            return (league_key, "teams", _norm(f.home), _norm(f.away))
-        return (league_key, "fixture", _norm(f.label))
+            return (league_key, "teams", name_key(f.home), name_key(f.away))
+        return (league_key, "fixture", name_key(f.label))
 
     keys = {f.label: key(f) for f in league.fixtures}
     seen: dict[tuple[str, ...], int] = {}
     for k in keys.values():
         seen[k] = seen.get(k, 0) + 1
     return {
-        label: _uid(k if seen[k] == 1 else (*k, "label", _norm(label))) for label, k in keys.items()
+        label: _uid(k if seen[k] == 1 else (*k, "label", name_key(label)))
+        for label, k in keys.items()
     }
 
 
@@ -217,40 +209,30 @@ def _check_dates(rows: Sequence[DatedFixture]) -> None:
         )
 
 
-def ics_calendars(league: League, schedule: Schedule) -> list[tuple[str, str, list[DatedFixture]]]:
+def ics_calendars(dated: DatedSchedule) -> list[tuple[str, str, list[DatedFixture]]]:
     """(file prefix, name, rows in date order) for the league, each team and each club."""
-    rows = dated_fixtures(league, schedule)
+    league = dated.league
+    rows = list(dated.rows)
     _check_dates(rows)
     rows.sort(key=lambda r: (r.round.date, r.round.time or dt.time.min, *r.sort_key()))
-    teams = sorted(
-        set(league.teams) | {t for f in league.fixtures for t in f.teams},
-        key=natural_key,
-    )
-    clubs: dict[str, set[str]] = {}
-    for name in teams:
-        team = league.teams.get(name)
-        if team is not None and team.club:
-            clubs.setdefault(team.club, set()).add(name)
+    teams = team_names(league)
+    clubs = club_teams(league, teams)
     out = [("league", league.settings.league or league.name, rows)]
     out += [("team", t, [r for r in rows if t in r.fixture.teams]) for t in teams]
     out += [
         ("club", c, [r for r in rows if members.intersection(r.fixture.teams)])
-        for c, members in sorted(clubs.items(), key=lambda kv: natural_key(kv[0]))
+        for c, members in clubs.items()
     ]
     return out
 
 
-def write_ics_files(
-    folder: StrPath,
-    league: League,
-    schedule: Schedule,
-    *,
-    now: dt.datetime | None = None,
-) -> list[Path]:
-    """Write the league, team and club calendars into `folder` (created if missing)."""
-    calendars = ics_calendars(league, schedule)
-    tz = league_time_zone(league)
-    moment = now if now is not None else dt.datetime.now(dt.UTC)
+def write_ics_files(folder: StrPath, dated: DatedSchedule) -> list[Path]:
+    """Write the league, team and club calendars into `folder` (created if missing), stamped
+    with the moment the schedule was dated."""
+    league = dated.league
+    calendars = ics_calendars(dated)
+    tz = dated.time_zone
+    moment = dated.stamp
     uids = fixture_uids(league)
     minutes = _slot_minutes([r.round for r in calendars[0][2]])
     target = Path(folder)

@@ -1,0 +1,63 @@
+"""A schedule with its dates: what every export is handed, dated once by the app layer."""
+
+from __future__ import annotations
+
+import datetime as dt
+import re
+from dataclasses import dataclass
+
+from leaguegrid.core.model import Fixture, League, RoundInfo, Schedule
+
+
+def natural_key(text: str | None) -> tuple:
+    """Sort key reading digit runs as numbers, so "U8" comes before "U10" and "Pitch 2" before
+    "Pitch 10"; case-insensitive, with the text itself breaking ties."""
+    parts = re.split(r"(\d+)", text or "")
+    return (tuple((0, int(p), "") if p.isdigit() else (1, 0, p.casefold()) for p in parts if p),
+            text or "")
+
+
+@dataclass(frozen=True)
+class DatedFixture:
+    """A fixture of a schedule with the round it was given."""
+
+    fixture: Fixture
+    round: RoundInfo
+
+    def sort_key(self) -> tuple:
+        """Round, then division, venue, pitch and label (in natural order), so every export
+        lists rows alike."""
+        f = self.fixture
+        return (self.round.number, natural_key(f.division), natural_key(f.venue),
+                natural_key(f.pitch), natural_key(f.label))
+
+
+@dataclass(frozen=True)
+class DatedSchedule:
+    """A league's schedule with every fixture's round date and time (rows sorted by round),
+    the league's time zone and the moment it was dated (the exports' time stamp)."""
+
+    league: League
+    schedule: Schedule
+    rows: list[DatedFixture]
+    time_zone: dt.tzinfo
+    stamp: dt.datetime
+
+
+def team_names(league: League) -> list[str]:
+    """Every team, in natural order: those of the Teams sheet and those named by fixtures (a
+    sheet, a calendar or a page each, in every export)."""
+    names = set(league.teams)
+    for f in league.fixtures:
+        names.update(f.teams)
+    return sorted(names, key=natural_key)
+
+
+def club_teams(league: League, teams: list[str]) -> dict[str, set[str]]:
+    """Club name -> its teams (Team.club), in natural order of club, for teams naming a club."""
+    clubs: dict[str, set[str]] = {}
+    for name in teams:
+        team = league.teams.get(name)
+        if team is not None and team.club:
+            clubs.setdefault(team.club, set()).add(name)
+    return dict(sorted(clubs.items(), key=lambda kv: natural_key(kv[0])))
