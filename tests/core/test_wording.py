@@ -1,0 +1,36 @@
+"""One wording for counts and plurals, whichever front end shows them."""
+
+from __future__ import annotations
+
+from leaguegrid.core import wording
+from leaguegrid.engine import Estimate
+
+
+def test_plurals_are_spelled_out() -> None:
+    assert wording.plural(1, "round") == "1 round"
+    assert wording.plural(2, "round") == "2 rounds"
+    assert wording.plural(0, "clash", "clashes") == "0 clashes"
+
+
+def test_a_long_exact_count_keeps_every_digit_and_gains_the_short_form() -> None:
+    n = 12_345_678_901_234_567_890_123
+    assert wording.full_text(n) == "12,345,678,901,234,567,890,123"
+    assert wording.count_text(n) == "12,345,678,901,234,567,890,123 (about 1.23 × 10²²)"
+    assert wording.cell_text(n) == "1.23 × 10²² (23 digits)"
+    assert wording.count_text(161280) == wording.cell_text(161280) == "161,280"
+
+
+def test_an_estimate_always_says_so() -> None:
+    est = Estimate(2 * 10**30, 10**30, 4 * 10**30, "sequential importance sampling")
+    assert wording.full_text(est) == wording.count_text(est) == (
+        "estimate by sequential importance sampling: between 1.00 × 10³⁰ and 4.00 × 10³⁰, "
+        "about 2.00 × 10³⁰; not an exact count")
+    assert wording.cell_text(est) == "≈ 1.00 × 10³⁰–4.00 × 10³⁰ (estimate)"
+    assert wording.count_text(None) == "not computed"
+
+
+def test_changes_read_as_times_as_many() -> None:
+    assert wording.times_text(3_200_000_000, 1_000_000_000) == "3.2 times as many"
+    assert wording.times_text(250, 1000) == "4 times fewer"
+    assert wording.times_text(7, 7) == "the same number"
+    assert wording.times_text(0, 7) == "none left"
