@@ -41,6 +41,10 @@ def main(argv: Sequence[str] | None = None) -> int:
     from leaguegrid.cli.main import main as command_line
 
     args = list(sys.argv[1:] if argv is None else argv)
+    if args[:1] == ["--engine-process"]:  # the frozen app starting its own engine process
+        from leaguegrid.gui.procchild import main as engine_process
+
+        return engine_process(args[1:])
     if wants_window(args):
         return open_window(Path(args[0]) if args else None)
     return command_line(args)

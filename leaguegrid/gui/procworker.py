@@ -82,6 +82,17 @@ def _ready(fd: int, timeout: float) -> bool:
     return bool(select.select([fd], [], [], timeout)[0])
 
 
+ENGINE_PROCESS_FLAG = "--engine-process"  # how a frozen (one-folder) app starts its engine
+
+
+def child_command() -> list[str]:
+    """The command that starts the engine process: this Python running procchild, or, in a
+    frozen desktop app (which has no `python -m`), the app itself with ENGINE_PROCESS_FLAG."""
+    if getattr(sys, "frozen", False):
+        return [sys.executable, ENGINE_PROCESS_FLAG]
+    return [sys.executable, "-m", "leaguegrid.gui.procchild"]
+
+
 class WorkerProcess:
     """The parent's handle on the child; `run` blocks (call it from a worker thread)."""
 
@@ -106,7 +117,7 @@ class WorkerProcess:
         root = str(Path(__file__).resolve().parents[2])
         env["PYTHONPATH"] = os.pathsep.join(filter(None, [root, env.get("PYTHONPATH")]))
         self._proc = subprocess.Popen(
-            [sys.executable, "-m", "leaguegrid.gui.procchild", str(child_in), str(child_out)],
+            [*child_command(), str(child_in), str(child_out)],
             pass_fds=(child_in, child_out), env=env, stdin=subprocess.DEVNULL)
         os.close(child_in)
         os.close(child_out)
