@@ -56,8 +56,8 @@ def _print_contents(league: League, graph: nx.Graph | None, out: TextIO) -> None
           f"Venues: {len(venues)}  Divisions: {len(divisions)}  "
           f"Clash rows: {len(league.clash_rows)}  Pinned: {len(league.pins)}", file=out)
     if graph is not None:
-        print(f"Clash graph: {graph.number_of_nodes()} fixtures, "
-              f"{graph.number_of_edges()} clashing pairs", file=out)
+        print(f"Clash graph: {plural(graph.number_of_nodes(), 'fixture')}, "
+              f"{plural(graph.number_of_edges(), 'clashing pair')}", file=out)
     print("\nFixtures:", file=out)
     for f in league.fixtures:
         extra = [x for x in (f.division, f.venue and f"at {f.venue}" + (f" pitch {f.pitch}"
@@ -112,7 +112,8 @@ def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool
         json.dump(counts_json(report), out, indent=2)
         out.write("\n")
         return
-    print(f"{league.name}: {report.fixtures} fixtures, {report.clashes} clashing pairs"
+    print(f"{league.name}: {plural(report.fixtures, 'fixture')}, "
+          f"{plural(report.clashes, 'clashing pair')}"
           + (f", {len(league.pins)} pinned" if report.pinned else ""), file=out)
     low, high = report.min_rounds_bounds
     if report.min_rounds is not None:

@@ -161,3 +161,16 @@ def test_count_says_which_rules_it_includes(cli, demo) -> None:
     assert any(r.startswith("played: 6 fixtures frozen") for r in data["rules_counted"])
     assert data["rules_generator"][0] == (
         "venue capacity: Kestrelmoor Rec hosts at most 2 fixtures a round (2 pitches)")
+
+
+def test_new_writes_a_blank_league_that_checks_and_is_never_overwritten(cli, tmp_path):
+    target = tmp_path / "blank.xlsx"
+    code, out, _ = cli("new", str(target))
+    assert code == 0
+    assert out == (f"Wrote a blank league workbook to {target}; fill it in, then run "
+                   f"`leaguegrid check {target}`.\n")
+    code, out, _ = cli("check", str(target))
+    assert code == 0 and out.endswith("Problems: none\nUsable: yes\n")
+    code, _, err = cli("new", str(target))
+    assert code == 2
+    assert err == f"leaguegrid new: {target} exists already; choose another name\n"
