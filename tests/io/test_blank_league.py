@@ -26,17 +26,27 @@ def test_untouched_it_reads_with_no_problem_at_all(tmp_path):
     opened = open_league(write_blank_league(tmp_path / "blank.xlsx"))
     assert opened.result.problems == []
     league = opened.result.league
-    assert [f.label for f in league.fixtures] == ["Reds v Blues", "Greens v Golds"]
+    assert [f.label for f in league.fixtures] == [
+        "Reds v Blues", "Greens v Golds", "Blues v Reds", "Golds v Greens"]
     assert len(league.teams) == 4
 
 
-def test_its_example_has_exactly_one_schedule_in_two_rounds(tmp_path):
-    # By hand: the two fixtures clash, and the Oval's fixture is blocked from round 1, so
-    # Greens v Golds plays round 2 and Reds v Blues round 1: one assignment, none in 1 round.
+def test_its_example_counts_as_worked_by_hand(tmp_path):
+    # By hand: the team clashes and the two Clashes rows make a 4-cycle; the Ties join its
+    # opposite corners, leaving one clashing pair of tied couples: k(k - 1) ways in k rounds.
+    # Round 3 is blocked for Example Park, whose fixtures sit in both couples: 2 ways in 2 or 3
+    # rounds, none in 1.
     league = open_league(write_blank_league(tmp_path / "blank.xlsx")).result.league
-    report = count_report(league, clash_graph(league), rounds=[1, 2])
+    report = count_report(league, clash_graph(league), rounds=[1, 2, 3])
     assert report.min_rounds == 2
-    assert [row.assignments for row in report.rows] == [0, 1]
+    assert [row.assignments for row in report.rows] == [0, 2, 2]
+
+
+def test_every_sheet_has_two_example_rows_or_the_rows_its_league_needs(tmp_path):
+    wb = openpyxl.load_workbook(write_blank_league(tmp_path / "blank.xlsx"))
+    rows = {title: wb[title].max_row - 1 for title in SHEETS.values()}
+    assert rows == {"Fixtures": 4, "Teams": 4, "Clashes": 2, "Rounds": 3, "Settings": 2,
+                    "Ties": 2, "Splits": 2, "Blocked": 2, "Venues": 2, "Distances": 1}
 
 
 def test_it_never_overwrites(tmp_path):

@@ -18,34 +18,41 @@ from leaguegrid.io.read.rules_sheets import BLOCKED_COLUMNS, DISTANCES_COLUMNS, 
 from leaguegrid.io.read.settings_sheet import SETTINGS_COLUMNS
 from leaguegrid.io.write.atomic import atomic_write
 
+DIVISION = "Example Under-10s"
 FIXED_TIME = dt.datetime(2026, 1, 1, 12, 0)  # workbook properties, so every copy is the same
 
 # (sheet, its columns as the reader names them, example rows by column key, what it holds)
 SHEETS: list[tuple[str, dict[str, str], list[dict[str, object]], str]] = [
     ("Fixtures", FIXTURES_COLUMNS, [
         {"fixture": "Reds v Blues", "home": "Example Reds", "away": "Example Blues",
-         "venue": "Example Park", "pitch": 1, "division": "Example Under-10s"},
+         "venue": "Example Park", "pitch": 1, "division": DIVISION},
         {"fixture": "Greens v Golds", "home": "Example Greens", "away": "Example Golds",
-         "venue": "Example Oval", "division": "Example Under-10s"},
+         "venue": "Example Oval", "division": DIVISION},
+        {"fixture": "Blues v Reds", "home": "Example Blues", "away": "Example Reds",
+         "venue": "Example Park", "pitch": 1, "division": DIVISION},
+        {"fixture": "Golds v Greens", "home": "Example Golds", "away": "Example Greens",
+         "venue": "Example Oval", "division": DIVISION},
     ], "One row per game. Home and Away name the teams; Venue where it is played; Round pins "
        "a fixture to a round; Played (yes) marks a game already played. Leave this sheet "
        "without rows to have every fixture of a division generated from the Teams sheet."),
     ("Teams", TEAMS_COLUMNS, [
-        {"team": "Example Reds", "venue": "Example Park", "division": "Example Under-10s",
+        {"team": "Example Reds", "venue": "Example Park", "division": DIVISION,
          "club": "Example Club"},
-        {"team": "Example Blues", "venue": "Example Park", "division": "Example Under-10s",
+        {"team": "Example Blues", "venue": "Example Park", "division": DIVISION,
          "club": "Example Club"},
-        {"team": "Example Greens", "venue": "Example Oval", "division": "Example Under-10s"},
-        {"team": "Example Golds", "venue": "Example Oval", "division": "Example Under-10s"},
+        {"team": "Example Greens", "venue": "Example Oval", "division": DIVISION},
+        {"team": "Example Golds", "venue": "Example Oval", "division": DIVISION},
     ], "One row per team: its home venue, division and club."),
     ("Clashes", PAIR_COLUMNS, [
-        {"first": "Reds v Blues", "second": "Greens v Golds",
-         "reason": "same coach (example)"},
+        {"first": "Reds v Blues", "second": "Golds v Greens", "reason": "same coach (example)"},
+        {"first": "Blues v Reds", "second": "Greens v Golds",
+         "reason": "same referee (example)"},
     ], "Two fixtures, teams or venues that must never share a round (a coach with two teams, "
        "families, a shared referee). A team or venue stands for all its fixtures."),
     ("Rounds", ROUNDS_COLUMNS, [
         {"round": 1, "date": dt.date(2027, 3, 6), "time": "09:00", "note": "first matchday"},
         {"round": 2, "date": dt.date(2027, 3, 13), "time": "09:00"},
+        {"round": 3, "date": dt.date(2027, 3, 20), "time": "09:00", "note": "spare day"},
     ], "One row per round (matchday or time slot) with its date; delete the sheet to date "
        "rounds from the Start date and Every settings instead."),
     ("Settings", SETTINGS_COLUMNS, [
@@ -53,12 +60,18 @@ SHEETS: list[tuple[str, dict[str, str], list[dict[str, object]], str]] = [
         {"setting": "Time zone", "value": "Europe/London"},
     ], "League name, Time zone, Legs, Start date, Every, Skip, Shared, Max home run, "
        "Max away run, Round balance, Return half: see the workbook format guide."),
-    ("Ties", PAIR_COLUMNS, [],
-     "Two fixtures that must be in the same round (for example a double-header)."),
-    ("Splits", PAIR_COLUMNS, [],
-     "Two fixtures that must be in different rounds without clashing otherwise."),
+    ("Ties", PAIR_COLUMNS, [
+        {"first": "Reds v Blues", "second": "Greens v Golds", "reason": "same day (example)"},
+        {"first": "Blues v Reds", "second": "Golds v Greens", "reason": "same day (example)"},
+    ], "Two fixtures that must be in the same round (for example a double-header)."),
+    ("Splits", PAIR_COLUMNS, [
+        {"first": "Reds v Blues", "second": "Blues v Reds", "reason": "legs apart (example)"},
+        {"first": "Greens v Golds", "second": "Golds v Greens",
+         "reason": "legs apart (example)"},
+    ], "Two fixtures that must be in different rounds without clashing otherwise."),
     ("Blocked", BLOCKED_COLUMNS, [
-        {"venue": "Example Oval", "round": 1, "reason": "ground closed (example)"},
+        {"venue": "Example Park", "round": 3, "reason": "ground closed (example)"},
+        {"team": "Example Reds", "date": dt.date(2027, 3, 20), "reason": "camp (example)"},
     ], "A team or venue that cannot play in a round (or on a date), with the reason."),
     ("Venues", VENUES_COLUMNS, [
         {"venue": "Example Park", "pitches": 1},
@@ -72,8 +85,8 @@ SHEETS: list[tuple[str, dict[str, str], list[dict[str, object]], str]] = [
 INSTRUCTIONS = [
     "A blank LeagueGrid league. Fill in the sheets, then run: leaguegrid check FILE.xlsx",
     "",
-    "The rows marked Example are read as a tiny valid league (four teams, two fixtures, two "
-    "rounds), so this workbook passes the check untouched. Replace them with your own.",
+    "The rows marked Example are read as a tiny valid league (four teams, four fixtures, "
+    "three rounds), so this workbook passes the check untouched. Replace them with your own.",
     "Only Fixtures (or Teams) is needed; every other sheet is optional and may be deleted.",
     "Names are matched ignoring case and every space (and Unicode compatibility forms such as "
     "full-width letters): 'Red Lions', 'red lions' and 'RedLions' are read as the same team, "
