@@ -350,7 +350,7 @@ def test_never_overwrites_the_input(tmp_path):
 
 # --- the demo leagues, loaded by the reader, planned and exported --------------------------
 
-DEMO_DIR = Path(__file__).resolve().parents[2] / "demo_leagues"
+DEMO_DIR = Path(__file__).resolve().parents[3] / "demo_leagues"
 
 
 @pytest.mark.parametrize(("name", "rounds"), [("clubday.xlsx", 6), ("season.xlsx", 6)])

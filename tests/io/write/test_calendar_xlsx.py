@@ -303,7 +303,7 @@ def test_failed_save_leaves_no_half_file(tmp_path, monkeypatch):
 
 # --- the demo leagues: rebuilt identically, loaded by the reader, planned and exported ---------
 
-DEMO_DIR = Path(__file__).resolve().parents[2] / "demo_leagues"
+DEMO_DIR = Path(__file__).resolve().parents[3] / "demo_leagues"
 DEMO_ROUNDS = {"small.xlsx": 4, "clubday.xlsx": 6, "season.xlsx": 6, "schedules.xlsx": 10}
 
 

@@ -19,7 +19,7 @@ from hypothesis import strategies as st
 from leaguegrid.core.model import LoadResult, Problem
 from leaguegrid.io.read.league_reader import SHEETS, load_league
 
-DEMOS = sorted((Path(__file__).resolve().parents[2] / "demo_leagues").glob("*.xlsx"))
+DEMOS = sorted((Path(__file__).resolve().parents[3] / "demo_leagues").glob("*.xlsx"))
 FUZZ = settings(max_examples=40, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 UNEXPECTED = "could not be read because of an unexpected error"
 

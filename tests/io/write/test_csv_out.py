@@ -130,7 +130,7 @@ def test_demo_league_round_trip(tmp_path):
     from leaguegrid.io.read.league_reader import load_league
     from leaguegrid.scheduling.draw import plan
 
-    demo = Path(__file__).resolve().parents[2] / "demo_leagues" / "clubday.xlsx"
+    demo = Path(__file__).resolve().parents[3] / "demo_leagues" / "clubday.xlsx"
     league = load_league(demo).league
     graph = build_clash_graph(league)
     schedule = plan(league, graph, 6, seed=9).schedule
