@@ -14,7 +14,7 @@ from leaguegrid.app.league import OpenedLeague
 from leaguegrid.app.planning import PlanOutcome
 from leaguegrid.app.whatif import WhatIfOutcome
 from leaguegrid.core.model import League, Problem
-from leaguegrid.core.wording import count_text, plural, times_text
+from leaguegrid.core.wording import count_text, counted_note, plural, rules_note, times_text
 from leaguegrid.scheduling.dates import DatesError, dated_fixtures
 
 
@@ -129,11 +129,9 @@ def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool
               "every-round-used respect the pins, ties, played and blocked rounds.)", file=out)
     for note in report.notes:
         print(f"Note: {note}", file=out)
-    if report.rules_counted:
-        print("Counts include: " + "; ".join(report.rules_counted), file=out)
-    if report.rules_generator:
-        print("Not in the counts (only the schedule generator enforces them): "
-              + "; ".join(report.rules_generator), file=out)
+    for line in (counted_note(report.rules_counted), rules_note(report.rules_generator)):
+        if line:
+            print(line, file=out)
     print("", file=out)
     print("Rounds | Assignments | Every round used | Groupings", file=out)
     for row in report.rows:
@@ -167,11 +165,9 @@ def print_plan(outcome: PlanOutcome, league: League, out: TextIO, err: TextIO) -
               "(exact)", file=out)
     for note in schedule.notes:
         print(f"Note: {note}", file=out)
-    if schedule.rules_counted:
-        print("Counts include: " + "; ".join(schedule.rules_counted), file=out)
-    if schedule.rules_generator:
-        print("Enforced by the generator only (not in the counts): "
-              + "; ".join(schedule.rules_generator), file=out)
+    for line in (counted_note(schedule.rules_counted), rules_note(schedule.rules_generator)):
+        if line:
+            print(line, file=out)
     try:
         rows = dated_fixtures(league, schedule)
     except DatesError as problem:

@@ -176,9 +176,13 @@ def plan_failure(status: str, rounds: int, reasons: list[str]) -> str:
     return "Making a schedule was cancelled."
 
 
+def counted_note(described: list[str]) -> str:
+    """Which rules the exact counts include, or '' when none is described."""
+    return "Counts include: " + "; ".join(described) if described else ""
+
+
 def rules_note(described: list[str]) -> str:
     """Which rules only the schedule generator enforces, or '' when there are none."""
     if not described:
         return ""
-    return ("Only the schedule generator enforces: " + "; ".join(described) +
-            " (the counts do not include these).")
+    return "Not in the counts (only the schedule generator enforces them): " + "; ".join(described)

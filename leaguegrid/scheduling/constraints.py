@@ -23,6 +23,7 @@ import networkx as nx
 from leaguegrid import engine
 from leaguegrid.core.model import League, Reason
 from leaguegrid.core.names import name_key
+from leaguegrid.core.wording import plural
 from leaguegrid.scheduling.rules import GeneratorRules, generator_rules
 
 
@@ -337,30 +338,26 @@ def _loop_text(
     )
 
 
-def _many(n: int, one: str, many: str) -> str:
-    """'1 pair', '3 pairs'."""
-    return f"{n} {one if n == 1 else many}"
-
-
 def counted_rules(league: League, clashes: nx.Graph, half: int | None, rounds: int) -> list[str]:
     """The rules the exact counts include, in plain words."""
-    pairs = _many(clashes.number_of_edges(), "pair", "pairs")
+    pairs = plural(clashes.number_of_edges(), "pair", "pairs")
     out = [f"clashes: {pairs} of fixtures never share a round"]
     if league.splits:
-        out.append(f"splits: {_many(len(league.splits), 'pair', 'pairs')} kept apart by hand "
+        out.append(f"splits: {plural(len(league.splits), 'pair', 'pairs')} kept apart by hand "
                    "(counted as clashes)")
     if league.ties:
-        out.append(f"ties: {_many(len(league.ties), 'pair', 'pairs')} of fixtures share a round")
+        out.append(f"ties: {plural(len(league.ties), 'pair', 'pairs')} of fixtures share a round")
     pinned = sum(1 for f in league.fixtures if f.pin is not None and not f.played)
     played = sum(1 for f in league.fixtures if f.pin is not None and f.played)
     if pinned:
-        out.append(f"pins: {_many(pinned, 'fixture', 'fixtures')} fixed to their rounds")
+        fixed = plural(pinned, "fixture fixed to its round", "fixtures fixed to their rounds")
+        out.append(f"pins: {fixed}")
     if played:
-        out.append(f"played: {_many(played, 'fixture', 'fixtures')} frozen in the rounds they "
+        out.append(f"played: {plural(played, 'fixture', 'fixtures')} frozen in the rounds they "
                    "were played")
     if league.blocked:
         out.append(
-            f"blocked: {_many(len(league.blocked), 'Blocked row keeps', 'Blocked rows keep')} "
+            f"blocked: {plural(len(league.blocked), 'Blocked row keeps', 'Blocked rows keep')} "
             "teams or venues out of rounds"
         )
     if half is not None:

@@ -187,7 +187,7 @@ def test_rules_lists_say_what_is_counted_and_what_only_the_generator_enforces():
     assert m.rules_counted == [
         f"clashes: {m.clashes.number_of_edges()} pairs of fixtures never share a round",
         "splits: 1 pair kept apart by hand (counted as clashes)",
-        "pins: 1 fixture fixed to their rounds",
+        "pins: 1 fixture fixed to its round",
         "blocked: 1 Blocked row keeps teams or venues out of rounds",
         "return half: first legs in rounds 1..3, return fixtures in rounds 4..6",
     ]
