@@ -12,6 +12,7 @@ from leaguegrid.core import wording
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.scheduling import score
 from leaguegrid.scheduling.check import check_schedule
+from leaguegrid.scheduling.dates import DatesError, round_dates
 from leaguegrid.scheduling.draw import PlanResult, fresh_seed, plan
 from leaguegrid.scheduling.rules import Violation, generator_rules
 
@@ -93,3 +94,21 @@ def generator_only_rules(league: League | None) -> list[str]:
         return list(generator_rules(league).describe())
     except AttributeError:
         return []
+
+
+def round_titles(league: League, rounds: int) -> list[str]:
+    """'Round 3' and, under it, its date and time where the league gives them."""
+    try:
+        infos = round_dates(league, rounds)
+    except DatesError:
+        infos = []
+    titles = []
+    for r in range(1, rounds + 1):
+        info = infos[r - 1] if r - 1 < len(infos) else None
+        extra = []
+        if info is not None and info.date is not None:
+            extra.append(info.date.isoformat())
+        if info is not None and info.time is not None:
+            extra.append(info.time.strftime("%H:%M"))
+        titles.append(f"Round {r}" + (f"\n{' '.join(extra)}" if extra else ""))
+    return titles

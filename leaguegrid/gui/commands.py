@@ -61,23 +61,6 @@ class TieCommand(_PairCommand):
         super().__init__(doc, (first, second), f"Tie {first} with {second}")
 
 
-class UntieCommand(QUndoCommand):
-    """Remove a tie made in the window."""
-
-    def __init__(self, doc: LeagueDocument, pair: tuple[str, str]) -> None:
-        super().__init__(f"Untie {pair[0]} and {pair[1]}")
-        self.doc, self.pair = doc, pair
-        self.index = doc.edits.ties.index(pair)
-
-    def redo(self) -> None:
-        self.doc.edits.ties.remove(self.pair)
-        self.doc.changed_edits()
-
-    def undo(self) -> None:
-        self.doc.edits.ties.insert(self.index, self.pair)
-        self.doc.changed_edits()
-
-
 class MoveCommand(QUndoCommand):
     """Move a fixture to another round of the chosen schedule."""
 

@@ -6,26 +6,16 @@ and applied to a copy (`working_league`) whenever counts or schedules are comput
 
 from __future__ import annotations
 
-import copy
-from dataclasses import dataclass, field
+from pathlib import Path
 from typing import Any
 
 from PySide6.QtCore import QObject, Signal
 from PySide6.QtGui import QUndoStack
 
-from leaguegrid.core.model import League, LoadResult, Reason, Schedule, Split, Tie
-
-ADDED_REASON = "added in the window"
-
-
-@dataclass
-class Edits:
-    """Everything the window changes relative to the workbook."""
-
-    pins: dict[str, int | None] = field(default_factory=dict)  # label -> round, None = unpinned
-    ties: list[tuple[str, str]] = field(default_factory=list)
-    waived: list[Reason] = field(default_factory=list)
-    added: list[tuple[str, str]] = field(default_factory=list)
+from leaguegrid.app import editing
+from leaguegrid.app.editing import Edits
+from leaguegrid.app.project import Project, restore
+from leaguegrid.core.model import League, LoadResult, Schedule
 
 
 class LeagueDocument(QObject):
@@ -78,30 +68,18 @@ class LeagueDocument(QObject):
         if league is not None and league.name:
             return league.name
         if self.path:
-            from pathlib import Path
-
             return Path(self.path).name
         return "no league open"
 
     def working_league(self) -> League | None:
         """A copy of the league with the window's pins, ties and added clashes applied."""
         league = self.league
-        if league is None:
-            return None
-        out = copy.deepcopy(league)
-        for fixture in out.fixtures:
-            if fixture.label in self.edits.pins:
-                fixture.pin = self.edits.pins[fixture.label]
-        out.ties.extend(Tie(a, b) for a, b in self.edits.ties)
-        out.splits.extend(Split(a, b, reason=ADDED_REASON) for a, b in self.edits.added)
-        return out
+        return None if league is None else editing.working_league(league, self.edits)
 
     def pin_of(self, label: str) -> int | None:
         """The fixture's pin as it stands with the window's edits."""
-        if label in self.edits.pins:
-            return self.edits.pins[label]
         league = self.league
-        return None if league is None else league.fixture(label).pin
+        return None if league is None else editing.pin_of(league, self.edits, label)
 
     def select(self, label: str | None) -> None:
         if label != self.selected:
@@ -123,6 +101,21 @@ class LeagueDocument(QObject):
     def set_schedule(self, schedule: Schedule | None) -> None:
         self.schedule = schedule
         self.scheduleChanged.emit()
+
+    def project(self, rounds: int | None) -> Project:
+        """What a project file of this document holds."""
+        return Project(workbook=self.path or "", sha256=self.sha256,
+                       mapping=dict(self.mapping or {}), edits=self.edits,
+                       schedule=self.schedule, rounds=rounds)
+
+    def restore(self, project: Project, current_sha: str | None) -> str | None:
+        """Lay a project's edits and schedule onto the freshly read league; a warning or None."""
+        restored = restore(project, self.league, current_sha)
+        self.edits = restored.edits
+        if restored.schedule is not None:
+            self.set_schedule(restored.schedule)
+        self.changed_edits()
+        return restored.warning
 
     def changed_edits(self) -> None:
         """Called by undo commands after they change `edits`."""

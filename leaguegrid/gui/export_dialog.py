@@ -20,7 +20,7 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from leaguegrid.app import bridge
+from leaguegrid.app import export
 from leaguegrid.core.model import League, Schedule
 
 PRIVACY = ("Clash reasons (which may name families or coaches) stay out of every club-facing "
@@ -94,14 +94,14 @@ class ExportDialog(QDialog):
         lines = []
         fixtures = len(self.schedule.assignment)
         if self.xlsx_on.isChecked():
-            sheets = bridge.calendar_sheet_plan(self.league)
+            sheets = export.calendar_sheet_names(self.league)
             lines.append(f"{self.xlsx_path.text()}")
             lines.append(f"  {len(sheets)} sheets: " + ", ".join(sheets[:12])
                          + (", …" if len(sheets) > 12 else ""))
             lines.append(f"  {fixtures} fixtures, {self.schedule.rounds} rounds, "
                          f"seed {self.schedule.seed}")
         if self.ics_on.isChecked():
-            names, problem = bridge.ics_plan(self.league, self.schedule)
+            names, problem = export.ics_file_names(self.league, self.schedule)
             if problem:
                 lines.append(f"{self.ics_path.text()}: cannot be written: {problem}")
             else:

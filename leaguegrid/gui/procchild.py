@@ -14,6 +14,7 @@ import threading
 import time
 import traceback
 
+from leaguegrid.engine import Hooks
 from leaguegrid.gui.procworker import receive, send
 
 PROGRESS_EVERY = 0.05  # seconds between progress messages
@@ -34,7 +35,7 @@ def _reader(in_fd: int, jobs: queue.Queue, cancel: threading.Event, cancelled: s
 
 
 def _run(message: tuple, out_fd: int, cancel: threading.Event) -> None:
-    _kind, _job, target, args, kwargs = message
+    _kind, _job, target, args, kwargs, budget = message
     last = [0.0]
 
     def progress(fraction: float, stage: str) -> None:
@@ -44,7 +45,7 @@ def _run(message: tuple, out_fd: int, cancel: threading.Event) -> None:
             send(out_fd, ("progress", fraction, stage))
 
     try:
-        result = target(*args, progress, cancel, **kwargs)
+        result = target(*args, hooks=Hooks(progress, cancel, budget), **kwargs)
     except Exception as exc:  # reported to the window as text
         if cancel.is_set() or type(exc).__name__ == "Cancelled":
             send(out_fd, ("cancelled",))

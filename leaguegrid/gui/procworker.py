@@ -8,10 +8,11 @@ process the stalls stay near the 10-20 ms of an idle loop.
 One child (`python -m leaguegrid.gui.procchild`) is started on first use and kept for later
 jobs. It is an ordinary subprocess, not multiprocessing, so it never re-runs the parent's main
 module. Messages are length-prefixed pickles on two private pipes. The parent sends
-("run", job, function, args, kwargs) and ("cancel", job); the child calls
-`function(*args, progress, cancel, **kwargs)` and answers ("progress", fraction, stage) (at most
-every 50 ms), then ("done", result), ("error", text) or ("cancelled",). A child that has not
-answered within `KILL_AFTER` seconds of Cancel is killed and replaced.
+("run", job, function, args, kwargs, budget) and ("cancel", job); the child calls
+`function(*args, hooks=engine.Hooks(progress, cancel, budget), **kwargs)` and answers
+("progress", fraction, stage) (at most every 50 ms), then ("done", result), ("error", text)
+or ("cancelled",). A child that has not answered within `KILL_AFTER` seconds of Cancel is
+killed and replaced.
 """
 
 from __future__ import annotations
@@ -31,6 +32,8 @@ from pathlib import Path
 from typing import Any
 
 from flint import fmpz_poly
+
+from leaguegrid.engine import Hooks
 
 KILL_AFTER = 5.0  # seconds a cancelled child may take before it is killed
 HEADER = struct.Struct("!Q")
@@ -127,16 +130,17 @@ class WorkerProcess:
         with self._lock:
             self._ensure()
 
-    def run(self, target: Callable, args: tuple, kwargs: dict,
-            progress: Callable[[float, str], None], cancel: threading.Event) -> Any:
-        """Run target in the child; raises RemoteCancelled or RemoteError."""
+    def run(self, target: Callable, args: tuple, kwargs: dict, hooks: Hooks) -> Any:
+        """Run target in the child under the hooks' budget, reporting its progress to them and
+        passing on their cancel; raises RemoteCancelled or RemoteError."""
+        cancel = hooks.cancel or threading.Event()
         with self._lock:
             self._ensure()
             assert self._to_child is not None and self._from_child is not None
             try:
                 self._jobs += 1
                 job = self._jobs
-                send(self._to_child, ("run", job, target, args, kwargs))
+                send(self._to_child, ("run", job, target, args, kwargs, hooks.budget))
             except OSError as err:
                 self._kill()
                 raise RemoteError(f"the engine process could not be reached ({err})") from err
@@ -157,7 +161,8 @@ class WorkerProcess:
                     raise RemoteError("the engine process ended unexpectedly") from err
                 kind = message[0]
                 if kind == "progress":
-                    progress(message[1], message[2])
+                    if hooks.progress is not None:
+                        hooks.progress(message[1], message[2])
                 elif kind == "done":
                     return message[1]
                 elif kind == "cancelled":
@@ -206,7 +211,7 @@ def shared_worker() -> WorkerProcess:
 
 def remote(target: Callable, *args: Any, **kwargs: Any) -> Callable:
     """A job function for worker.Runner that runs `target` in the engine process."""
-    def run(progress: Callable[[float, str], None], cancel: threading.Event) -> Any:
-        return shared_worker().run(target, args, kwargs, progress, cancel)
+    def run(hooks: Hooks) -> Any:
+        return shared_worker().run(target, args, kwargs, hooks)
 
     return run

@@ -16,7 +16,8 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from leaguegrid.app import bridge
+from leaguegrid.app import planning
+from leaguegrid.core import wording
 from leaguegrid.gui import palette
 from leaguegrid.gui.document import LeagueDocument
 from leaguegrid.gui.pickers import ask_round, pick_tie_partner
@@ -142,7 +143,7 @@ class ScheduleView(QWidget):
         self.grid.setColumnCount(len(venues))
         self.grid.setRowCount(k)
         self.grid.setHorizontalHeaderLabels(venues)
-        self.grid.setVerticalHeaderLabels(bridge.round_titles(league, k))
+        self.grid.setVerticalHeaderLabels(planning.round_titles(league, k))
         cells = [[Cell(self, r + 1) for _c in venues] for r in range(k)]
         for label, r in sorted(schedule.assignment.items(), key=lambda kv: kv[0].casefold()):
             f = fixtures.get(label)
@@ -156,9 +157,9 @@ class ScheduleView(QWidget):
                 cells[r][c].box.addStretch(1)
                 self.grid.setCellWidget(r, c, cells[r][c])
         self.grid.horizontalHeader().setStretchLastSection(True)
-        self.violations = bridge.check_schedule(league, self.doc.graph, schedule) \
+        self.violations = planning.schedule_problems(league, self.doc.graph, schedule) \
             if self.doc.graph is not None else []
-        self.info.setText(message or bridge.schedule_summary(schedule))
+        self.info.setText(message or wording.schedule_summary(schedule))
         self.status.setText(self.validity_text())
         self._paint_chips()
         self._fit_cells(cells)

@@ -1,9 +1,9 @@
 """Running long work off the GUI thread: one job at a time in a QThread, with progress,
 stage text and Cancel, results delivered by signals.
 
-The job is a plain function `fn(progress, cancel) -> result`; `progress(fraction, stage)` may be
-called as often as the engine likes: the latest value is polled by a GUI-thread timer, so a busy
-engine never floods the event queue.
+The job is a plain function `fn(hooks) -> result` given the one budget/progress/cancel object
+(engine.Hooks); its progress may be reported as often as the engine likes: the latest value is
+polled by a GUI-thread timer, so a busy engine never floods the event queue.
 """
 
 from __future__ import annotations
@@ -17,9 +17,16 @@ from typing import Any
 
 from PySide6.QtCore import QObject, QThread, QTimer, Signal
 
+from leaguegrid.engine import Hooks
+
 Progress = Callable[[float, str], None]
-JobFn = Callable[[Progress, threading.Event], Any]
+JobFn = Callable[[Hooks], Any]
 POLL_MS = 100
+
+
+def call(target: Callable[..., Any], *args: Any, **kwargs: Any) -> JobFn:
+    """A job function running `target(*args, hooks=hooks, **kwargs)` in the worker thread."""
+    return lambda hooks: target(*args, hooks=hooks, **kwargs)
 
 
 class JobCancelled(Exception):
@@ -34,6 +41,7 @@ class Job:
     fn: JobFn
     on_done: Callable[[Any], None] | None = None
     on_error: Callable[[str], None] | None = None
+    budget: float | None = None  # seconds the work may take (None: no limit)
     cancel: threading.Event = field(default_factory=threading.Event)
     started: float = 0.0
 
@@ -52,7 +60,7 @@ class _Thread(QThread):
 
     def run(self) -> None:
         try:
-            result = self.job.fn(self.report, self.job.cancel)
+            result = self.job.fn(Hooks(self.report, self.job.cancel, self.job.budget))
         except Exception as exc:  # every failure reaches the window as text, never a crash
             if self.job.cancel.is_set() or is_cancellation(exc):
                 self.stopped.emit()

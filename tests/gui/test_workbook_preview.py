@@ -8,7 +8,7 @@ os.environ["QT_QPA_PLATFORM"] = "offscreen"
 
 from openpyxl import Workbook  # noqa: E402
 
-from leaguegrid.app import bridge  # noqa: E402
+from leaguegrid.app.league import open_league, preview_sheets  # noqa: E402
 from leaguegrid.clashes.graph import build_clash_graph  # noqa: E402
 from leaguegrid.gui.import_view import ImportView  # noqa: E402
 
@@ -17,10 +17,10 @@ MATCHING = {"Home": "Home team", "Away": "Away team", "Venue": "Ground", "Shared
 
 def shown(qtbot, path, mapping=None):
     """An ImportView showing `path` as the window shows it, and the reader's problems."""
-    result = bridge.load(path, mapping)
+    result = open_league(path, mapping).result
     view = ImportView()
     qtbot.addWidget(view)
-    view.show_workbook(str(path), bridge.preview_sheets(path), list(result.problems), "")
+    view.show_workbook(str(path), preview_sheets(path), list(result.problems), "")
     return view, result
 
 
@@ -50,7 +50,7 @@ def test_a_shared_column_from_the_matching_makes_clashes(tmp_path):
     path.write_text("Home team;Away team;Ground;Referee\nOtters;Herons;Alder Green;Ms Pike\n"
                     "Wrens;Kites;Millbrook;Mr Vale\nBadgers;Owls;Hill Top;Ms Pike\n",
                     encoding="utf-8")
-    result = bridge.load(path, MATCHING)
+    result = open_league(path, MATCHING).result
     assert result.ok, [str(p) for p in result.problems]
     graph = build_clash_graph(result.league)
     assert [tuple(sorted(e)) for e in graph.edges] == [("Badgers v Owls", "Otters v Herons")]
@@ -84,14 +84,14 @@ def test_workbook_preview_numbers_rows_as_the_spreadsheet_and_shows_error_cells(
     sheet["B4"], sheet["C4"] = "Otters", "Herons"
     sheet["A6"] = "#REF!"
     book.save(path)
-    assert bridge.preview_sheets(path) == {"Fixtures": [
+    assert preview_sheets(path) == {"Fixtures": [
         (1, ["Fixture", "Home", "Away"]), (4, [None, "Otters", "Herons"]), (6, ["#REF!"])]}
-    assert bridge.preview_sheets(path, limit=2) == {"Fixtures": [
+    assert preview_sheets(path, limit=2) == {"Fixtures": [
         (1, ["Fixture", "Home", "Away"]), (4, [None, "Otters", "Herons"])]}
 
 
 def test_an_unreadable_file_has_no_preview(tmp_path):
     path = tmp_path / "junk.xlsx"
     path.write_bytes(b"PK\x03\x04 truncated")
-    assert bridge.preview_sheets(path) == {}
-    assert bridge.preview_sheets(tmp_path / "nowhere.csv") == {}
+    assert preview_sheets(path) == {}
+    assert preview_sheets(tmp_path / "nowhere.csv") == {}

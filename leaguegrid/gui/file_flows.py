@@ -1,0 +1,202 @@
+"""The window's file work: opening workbooks, CSVs and projects (read in the worker), column
+matching, recent files, saving projects and exporting calendars, all through leaguegrid.app."""
+
+from __future__ import annotations
+
+from pathlib import Path
+from typing import Any
+
+from PySide6.QtWidgets import QFileDialog
+
+from leaguegrid.app import export, league, project
+from leaguegrid.app.export import ExportFailed, ExportTargets
+from leaguegrid.core.wording import plural
+from leaguegrid.gui.export_dialog import ExportDialog
+from leaguegrid.gui.mapping_dialog import MappingDialog, load_mapping, save_mapping
+from leaguegrid.gui.worker import Job, call
+
+MAX_RECENT = 8
+OPEN_FILTER = ("League workbooks and projects (*.xlsx *.csv *.leaguegrid);;"
+               "Workbooks (*.xlsx);;CSV files (*.csv);;LeagueGrid projects (*.leaguegrid)")
+
+
+class FileFlows:
+    """Mixed into MainWindow: what the File menu does."""
+
+    def open_dialog(self: Any) -> None:
+        start = self.settings.value("lastFolder", str(Path.home()))
+        path, _f = QFileDialog.getOpenFileName(self, "Open a league", str(start), OPEN_FILTER)
+        if path:
+            self.open_path(path)
+
+    def open_path(self: Any, path: str) -> None:
+        """Open a workbook, a CSV or a project file (read in the worker thread)."""
+        if path.lower().endswith(project.SUFFIX):
+            self.open_project(path)
+            return
+        self.settings.setValue("lastFolder", str(Path(path).parent))
+        self._read(path, load_mapping(self.settings, path))
+
+    def reload(self: Any) -> None:
+        if self.doc.path:
+            self._read(self.doc.path, self.doc.mapping)
+
+    def _read(self: Any, path: str, mapping: dict[str, str] | None, after: Any = None) -> None:
+        def done(opened: league.OpenedLeague) -> None:
+            self._opened(path, mapping, opened)
+            if after is not None:
+                after()
+
+        work = call(league.open_league, path, mapping, preview=True)
+        self.runner.start(Job(f"Reading {Path(path).name}", work, done))
+
+    def _opened(self: Any, path: str, mapping: dict[str, str] | None,
+                opened: league.OpenedLeague) -> None:
+        result, graph = opened.result, opened.graph
+        self.report = None
+        self.graph = graph
+        self._user_rounds = False
+        self.doc.graph = graph
+        self.doc.set_result(path, result, opened.sha256, mapping)
+        self.doc.project_path = None
+        self._remember(path)
+        lg = result.league
+        if lg is not None:
+            venues = len({f.venue for f in lg.fixtures if f.venue})
+            clashes = graph.number_of_edges() if graph is not None else 0
+            parts = [plural(len(lg.fixtures), "fixture"), plural(len(lg.teams), "team"),
+                     plural(venues, "venue"), plural(clashes, "clash", "clashes")]
+            summary = f"{Path(path).name}: {', '.join(parts)}."
+        else:
+            summary = f"{Path(path).name} could not be used: see the problems below."
+        if not result.ok and lg is not None:
+            summary += " It has errors: fix them in the workbook and reload (F5)."
+        self.import_view.show_workbook(path, opened.preview or {}, list(result.problems),
+                                       summary)
+        self.fixtures_view.refresh()
+        self.doc.set_graph(graph)
+        self.counts_view.clear("Counting…" if result.ok else "No counts: the league has errors.")
+        self.schedule_view.refresh()
+        self.whatif_view.clear()
+        self._update_enabled()
+        self.stage_label.setText(summary)
+        if not result.ok:
+            self.tabs.setCurrentWidget(self.import_view)
+        self.leagueOpened.emit(path)
+        if result.ok:
+            self.compute_counts()
+
+    def edit_mapping(self: Any) -> None:
+        """Match the workbook's columns to ours; the choice is remembered for this file."""
+        if not self.doc.path:
+            return
+        dialog = MappingDialog(league.preview_sheets(self.doc.path), self.doc.mapping or {},
+                               self)
+        if dialog.exec():
+            mapping = dialog.mapping()
+            save_mapping(self.settings, self.doc.path, mapping)
+            self._read(self.doc.path, mapping)
+
+    # recent files -----------------------------------------------------------------------
+    def recent_files(self: Any) -> list[str]:
+        value = self.settings.value("recent", [])
+        if isinstance(value, str):
+            value = [value]
+        return [str(v) for v in (value or [])]
+
+    def _remember(self: Any, path: str) -> None:
+        items = [p for p in self.recent_files() if p != path]
+        items.insert(0, path)
+        self.settings.setValue("recent", items[:MAX_RECENT])
+        self._fill_recent()
+
+    def _fill_recent(self: Any) -> None:
+        self.recent_menu.clear()
+        for path in self.recent_files():
+            act = self.recent_menu.addAction(Path(path).name)
+            act.setToolTip(path)
+            act.setStatusTip(path)
+            act.triggered.connect(lambda _c=False, p=path: self.open_path(p))
+        self.recent_menu.setEnabled(bool(self.recent_files()))
+
+    # projects ---------------------------------------------------------------------------
+    def save_project(self: Any) -> None:
+        if self.doc.project_path:
+            self._write_project(self.doc.project_path)
+        else:
+            self.save_project_as()
+
+    def save_project_as(self: Any) -> None:
+        if not self.doc.path:
+            return
+        suggested = str(Path(self.doc.path).with_suffix(project.SUFFIX))
+        path, _f = QFileDialog.getSaveFileName(self, "Save project", suggested,
+                                               f"LeagueGrid projects (*{project.SUFFIX})")
+        if path:
+            if not path.endswith(project.SUFFIX):
+                path += project.SUFFIX
+            self._write_project(path)
+
+    def _write_project(self: Any, path: str) -> None:
+        try:
+            project.save_project(path, self.doc.project(self.rounds_box.value()))
+        except OSError as err:
+            self.last_error = str(err)
+            self.stage_label.setText(f"The project could not be saved: {err}")
+            return
+        self.doc.project_path = path
+        self.doc.undo.setClean()
+        self._remember(path)
+        self.stage_label.setText(f"Project saved to {path}.")
+
+    def open_project(self: Any, path: str) -> None:
+        try:
+            data = project.read_project(path)
+        except project.ProjectError as err:
+            self._warn(str(err))
+            return
+        workbook = data.workbook_path(path)
+
+        def restore() -> None:
+            found = Path(workbook).is_file()
+            warning = self.doc.restore(data, league.sha256_of(workbook) if found else None)
+            self.doc.project_path = path
+            self._remember(path)
+            if data.rounds:
+                self._set_rounds(data.rounds, user=True)
+            if warning:
+                self._warn(warning)
+            self.schedule_view.refresh()
+            self._update_enabled()
+            self.doc.undo.setClean()
+
+        self._read(workbook, data.mapping or None, after=restore)
+
+    # export -----------------------------------------------------------------------------
+    def export_dialog(self: Any) -> None:
+        if self.doc.schedule is None:
+            return
+        dialog = ExportDialog(self, self.doc.working_league(), self.doc.schedule,
+                              self.settings)
+        if dialog.exec():
+            self.export(dialog.choices())
+
+    def export(self: Any, choices: dict[str, str | None]) -> list[str]:
+        """Write what `choices` names (xlsx, csv: file paths; ics: a folder); returns paths."""
+        lg, graph = self.working()
+        schedule = self.doc.schedule
+        if lg is None or schedule is None:
+            return []
+        targets = ExportTargets(**{kind: Path(choices[kind]) for kind in ("xlsx", "csv", "ics")
+                                   if choices.get(kind)})
+        fewest = self.report.min_rounds if self.report is not None else None
+        try:
+            outcome = export.export_schedule(lg, graph, schedule, targets, fewest)
+        except ExportFailed as err:  # it says why, and leaves no half-written file
+            self._warn(str(err), "Export failed.")
+            self.stage_label.setText(f"Export failed: {err}")
+            return [str(p) for p in err.written]
+        written = [str(p) for p in outcome.written]
+        self.last_export = written
+        self.stage_label.setText(f"Exported {plural(len(written), 'file')}.")
+        return written

@@ -1,0 +1,133 @@
+"""The window's long work: counting, drawing schedules and ranking clash reasons, each a use
+case of leaguegrid.app run by the Runner (in the engine process by default, else a thread)."""
+
+from __future__ import annotations
+
+import random
+from typing import Any
+
+import networkx as nx
+from PySide6.QtWidgets import QInputDialog
+
+from leaguegrid.app import counting, league, planning
+from leaguegrid.app import whatif as what
+from leaguegrid.app.defaults import BEST_OF, COUNT_BUDGET, PLAN_BUDGET, WHATIF_BUDGET
+from leaguegrid.core import wording
+from leaguegrid.gui import procworker
+from leaguegrid.gui.worker import Job, JobFn, call
+
+
+class WorkFlows:
+    """Mixed into MainWindow: what the League menu does."""
+
+    def working(self: Any) -> tuple[Any, Any]:
+        """The league with the window's edits, and its clash graph without waived reasons."""
+        lg = self.doc.working_league()
+        return lg, league.clash_graph(lg, self.doc.edits.waived)
+
+    def _engine_in_process(self: Any) -> bool:
+        return self.settings.value("engineProcess", "true") in (True, "true", "1", 1)
+
+    def _engine_job(self: Any, target: Any, *args: Any, **kwargs: Any) -> JobFn:
+        """A use case as a Runner job: in the engine process (the default) or in a thread."""
+        if self._engine_in_process():
+            return procworker.remote(target, *args, **kwargs)
+        return call(target, *args, **kwargs)
+
+    def _count_budget(self: Any) -> float:
+        return float(self.settings.value("countBudget", COUNT_BUDGET))
+
+    def compute_counts(self: Any) -> None:
+        """Count in the worker; what passes the budget is estimated (and labelled so)."""
+        if not self.doc.usable:
+            return
+        lg, graph = self.working()
+        if self.doc.graph is None or not nx.utils.graphs_equal(self.doc.graph, graph):
+            self.doc.set_graph(graph)
+        self.graph = graph
+        work = self._engine_job(counting.count_league, lg, graph)
+        self.runner.start(Job("Counting", work, self._counts_done, budget=self._count_budget()))
+
+    def budget_dialog(self: Any) -> None:
+        seconds, ok = QInputDialog.getInt(
+            self, "Time allowed for counting",
+            "Seconds a count may take (what is not finished by then is shown as a labelled "
+            "estimate or as not computed):", int(self._count_budget()), 1, 24 * 3600)
+        if ok:
+            self.settings.setValue("countBudget", seconds)
+
+    def _counts_done(self: Any, report: counting.CountReport) -> None:
+        self.report = report
+        note = wording.rules_note(planning.generator_only_rules(self.doc.working_league()))
+        self.counts_view.show_report(report, note)
+        if report.min_rounds is not None and not self._user_rounds:
+            self._set_rounds(report.min_rounds, user=False)
+        self.stage_label.setText(
+            f"Counted: fewest rounds {report.min_rounds}." if report.complete else
+            "Counting stopped before the end; what is missing is marked.")
+        self.countsReady.emit(report)
+
+    def _set_rounds(self: Any, k: int, user: bool) -> None:
+        self.rounds_box.blockSignals(True)
+        self.rounds_box.setValue(k)
+        self.rounds_box.blockSignals(False)
+        self._user_rounds = user
+
+    def _rounds_edited(self: Any, _k: int) -> None:
+        self._user_rounds = True
+
+    def _rounds_from_table(self: Any, k: int) -> None:
+        self._set_rounds(k, user=True)
+
+    # schedules --------------------------------------------------------------------------
+    def draw_schedule(self: Any, seed: int | None = None, draws: int = 1) -> None:
+        """Draw a schedule for the rounds in the toolbar (a new seed unless one is given)."""
+        if not self.doc.usable:
+            return
+        k = self.rounds_box.value()
+        seed = random.SystemRandom().randrange(1, 2**31) if seed in (None, False) else seed
+        lg, graph = self.working()
+        work = self._engine_job(planning.make_schedule, lg, graph, k, seed, draws)
+        label = "Drawing a schedule" if draws == 1 else f"Drawing {draws} schedules"
+        self.runner.start(Job(label, work, self._schedule_done, budget=PLAN_BUDGET))
+
+    def redraw_same_seed(self: Any) -> None:
+        if self.doc.schedule is not None and self.doc.schedule.seed is not None:
+            self.draw_schedule(self.doc.schedule.seed)
+
+    def best_of_dialog(self: Any) -> None:
+        n, ok = QInputDialog.getInt(self, "Best of many", "Schedules to draw:",
+                                    int(self.settings.value("bestOf", BEST_OF)), 2, 100000)
+        if ok:
+            self.settings.setValue("bestOf", n)
+            self.draw_schedule(draws=n)
+
+    def _schedule_done(self: Any, outcome: planning.PlanOutcome) -> None:
+        schedule = outcome.schedule
+        self.doc.set_schedule(schedule)
+        self.schedule_view.refresh(outcome.message)
+        self.clash_view.colour_by(schedule)
+        if schedule is not None:
+            self.tabs.setCurrentWidget(self.schedule_view)
+            self.stage_label.setText(f"Schedule drawn for {schedule.rounds} rounds "
+                                     f"(seed {schedule.seed}).")
+        else:
+            self.stage_label.setText(outcome.message)
+        self.scheduleReady.emit(schedule)
+
+    # what-if ----------------------------------------------------------------------------
+    def compute_whatif(self: Any) -> None:
+        """Rank the clash reasons by what waiving each would gain, for the toolbar's rounds."""
+        if not self.doc.usable:
+            return
+        k = self.rounds_box.value()
+        lg, graph = self.working()
+        work = self._engine_job(what.what_if, lg, graph, k)
+
+        def done(outcome: what.WhatIfOutcome) -> None:
+            self.whatif_view.show_result(k, outcome.report, outcome.reasons)
+            self.tabs.setCurrentWidget(self.whatif_view)
+            self.stage_label.setText(f"Clash reasons ranked for {k} rounds.")
+
+        self.runner.start(Job("Ranking clash reasons", work, done, budget=WHATIF_BUDGET))
+
