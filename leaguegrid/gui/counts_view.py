@@ -13,14 +13,13 @@ from PySide6.QtWidgets import (
     QPlainTextEdit,
     QPushButton,
     QSplitter,
-    QTableWidgetItem,
     QVBoxLayout,
     QWidget,
 )
 
-from leaguegrid.core import wording as numbers
+from leaguegrid.core import wording
 from leaguegrid.gui.count_plot import CountPlot, PlotPoint
-from leaguegrid.gui.tables import row_table
+from leaguegrid.gui.table_model import RIGHT, Cell, RowsModel, row_view, selected_row
 
 COLUMNS = ("Rounds", "Assignments", "All rounds used", "Groupings")
 FIELDS = ("rounds", "assignments", "all_rounds_used", "groupings")
@@ -45,14 +44,13 @@ class CountsView(QWidget):
         self.summary = QLabel("Open a league and compute its counts (Ctrl+R).")
         self.summary.setWordWrap(True)
         self.summary.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-        self.table = row_table("countsTable", COLUMNS)
-        for i, tip in enumerate(HEADER_TIPS):
-            self.table.horizontalHeaderItem(i).setToolTip(tip)
+        self.model = RowsModel(COLUMNS, HEADER_TIPS, parent=self)
+        self.table = row_view("countsTable", self.model)
         self.table.verticalHeader().setVisible(False)
         self.table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.Stretch)
         self.table.horizontalHeader().setSectionResizeMode(
             0, QHeaderView.ResizeMode.ResizeToContents)
-        self.table.itemSelectionChanged.connect(self._row_picked)
+        self.table.selectionModel().selectionChanged.connect(self._row_picked)
         self.plot = CountPlot()
         self.polynomial = QPlainTextEdit()
         self.polynomial.setObjectName("polynomialText")
@@ -84,7 +82,7 @@ class CountsView(QWidget):
 
     def clear(self, message: str = "") -> None:
         self.report = None
-        self.table.setRowCount(0)
+        self.model.set_rows([])
         self.polynomial.setPlainText("")
         self.copy_button.setEnabled(False)
         self.plot.set_data([], None)
@@ -94,27 +92,23 @@ class CountsView(QWidget):
         """Fill the table, plot and polynomial from an analysis CountReport."""
         self.report = report
         self.summary.setText(self._summary_text(report, rules_note))
-        self.table.setRowCount(len(report.rows))
-        for r, row in enumerate(report.rows):
-            for c, name in enumerate(FIELDS):
-                value = getattr(row, name)
-                text = str(value) if name == "rounds" else numbers.cell_text(value)
-                item = QTableWidgetItem(text)
-                item.setToolTip(numbers.full_text(value) if name != "rounds" else
-                                f"{value} rounds")
-                align = Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter
-                item.setTextAlignment(align)
-                if name == "rounds" and report.min_rounds == value:
-                    font = item.font()
-                    font.setBold(True)
-                    item.setFont(font)
-                    item.setToolTip(f"{value} rounds: the fewest that can work")
-                self.table.setItem(r, c, item)
+        self.model.set_rows([self._cells(report, row) for row in report.rows])
         text = report.polynomial_text
         self.polynomial.setPlainText(text if text else "not computed")
         self.copy_button.setEnabled(bool(text))
         self.plot.set_data([PlotPoint(row.rounds, row.assignments) for row in report.rows],
                            report.min_rounds)
+
+    @staticmethod
+    def _cells(report: Any, row: Any) -> list[Cell]:
+        """One row of the table: K, then each count as the wording module writes it (the
+        exact digits in the tooltip)."""
+        k = row.rounds
+        fewest = report.min_rounds == k
+        first = Cell(str(k), tip=f"{k} rounds: the fewest that can work" if fewest
+                     else f"{k} rounds", bold=fewest, align=RIGHT, value=k)
+        return [first, *(Cell(wording.cell_text(v), tip=wording.full_text(v), align=RIGHT,
+                               value=v) for v in (getattr(row, name) for name in FIELDS[1:]))]
 
     def values(self) -> list[dict[str, Any]]:
         """The values behind the table (exact ints, estimates or None), row by row."""
@@ -138,16 +132,16 @@ class CountsView(QWidget):
                          "polynomial and the groupings describe the clash graph itself.")
         if getattr(report, "cancelled", False):
             parts.append("Stopped before the end: what was not finished shows as "
-                         f"“{numbers.NOT_COMPUTED}”.")
+                         f"“{wording.NOT_COMPUTED}”.")
         elif not report.complete:
             parts.append("Not everything finished in time: what is missing shows as "
-                         f"“{numbers.NOT_COMPUTED}” or as a labelled estimate.")
+                         f"“{wording.NOT_COMPUTED}” or as a labelled estimate.")
         parts += list(report.notes)
         if rules_note:
             parts.append(rules_note)
         return " ".join(parts)
 
     def _row_picked(self) -> None:
-        rows = self.table.selectionModel().selectedRows()
-        if rows and self.report is not None and rows[0].row() < len(self.report.rows):
-            self.roundsChosen.emit(self.report.rows[rows[0].row()].rounds)
+        row = selected_row(self.table)
+        if row is not None and self.report is not None and row < len(self.report.rows):
+            self.roundsChosen.emit(self.report.rows[row].rounds)

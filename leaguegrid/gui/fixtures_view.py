@@ -3,18 +3,11 @@
 from __future__ import annotations
 
 from PySide6.QtCore import QPoint, Qt, Signal
-from PySide6.QtWidgets import (
-    QHeaderView,
-    QLabel,
-    QMenu,
-    QTableWidgetItem,
-    QVBoxLayout,
-    QWidget,
-)
+from PySide6.QtWidgets import QHeaderView, QLabel, QMenu, QVBoxLayout, QWidget
 
 from leaguegrid.gui.document import LeagueDocument
 from leaguegrid.gui.pickers import ask_round, pick_tie_partner
-from leaguegrid.gui.tables import row_table
+from leaguegrid.gui.table_model import Cell, RowsModel, row_view, selected_row
 
 COLUMNS = ("Fixture", "Home", "Away", "Venue", "Pitch", "Division", "Pinned round",
            "Round in schedule", "Clash with selected")
@@ -30,14 +23,16 @@ class FixturesView(QWidget):
         super().__init__(parent)
         self.doc = doc
         self.note = QLabel("Right-click a fixture to pin it to a round or tie it to another.")
-        self.table = row_table("fixturesTable", COLUMNS)
+        self.model = RowsModel(COLUMNS, parent=self)
+        self.table = row_view("fixturesTable", self.model)
         self.table.horizontalHeader().setSectionResizeMode(
             QHeaderView.ResizeMode.ResizeToContents)
         self.table.horizontalHeader().setStretchLastSection(True)
         self.table.setContextMenuPolicy(Qt.ContextMenuPolicy.CustomContextMenu)
         self.table.customContextMenuRequested.connect(self._menu)
-        self.table.itemSelectionChanged.connect(self._picked)
+        self.table.selectionModel().selectionChanged.connect(self._picked)
         self.rows: dict[str, int] = {}
+        self._syncing = False
         layout = QVBoxLayout(self)
         layout.addWidget(self.note)
         layout.addWidget(self.table)
@@ -54,63 +49,57 @@ class FixturesView(QWidget):
                 list(self.doc.edits.ties):
             tied.setdefault(a, []).append(b)
             tied.setdefault(b, []).append(a)
-        self.table.blockSignals(True)
-        self.table.setRowCount(len(fixtures))
         self.rows = {}
+        rows = []
         for r, f in enumerate(fixtures):
             self.rows[f.label] = r
             pin = self.doc.pin_of(f.label)
             in_schedule = schedule.assignment.get(f.label) if schedule is not None else None
-            values = (f.label, f.home, f.away, f.venue, f.pitch, f.division,
-                      "" if pin is None else str(pin) + (" (played)" if f.played else ""),
-                      "" if in_schedule is None else str(in_schedule), "")
-            for c, value in enumerate(values):
-                item = QTableWidgetItem(value or "")
-                if c == 0:
-                    item.setData(Qt.ItemDataRole.UserRole, f.label)
-                    if f.label in tied:
-                        item.setToolTip("Tied with " + ", ".join(tied[f.label]))
-                        item.setText(f"{f.label}  (tied)")
-                self.table.setItem(r, c, item)
-        self.table.blockSignals(False)
+            first = Cell(f"{f.label}  (tied)" if f.label in tied else f.label,
+                         tip="Tied with " + ", ".join(tied[f.label]) if f.label in tied else None,
+                         value=f.label)
+            rest = (f.home, f.away, f.venue, f.pitch, f.division,
+                    "" if pin is None else str(pin) + (" (played)" if f.played else ""),
+                    "" if in_schedule is None else str(in_schedule), "")
+            rows.append([first, *(Cell(value or "") for value in rest)])
+        self._syncing = True
+        self.model.set_rows(rows)
+        self._syncing = False
         self._show_selection(self.doc.selected)
 
     def _graph_changed(self) -> None:
         self._show_selection(self.doc.selected)
 
     def _label_at(self, row: int) -> str | None:
-        item = self.table.item(row, 0)
-        return None if item is None else item.data(Qt.ItemDataRole.UserRole)
+        return self.model.cell(row, 0).value if 0 <= row < self.model.rowCount() else None
 
     def _picked(self) -> None:
-        rows = self.table.selectionModel().selectedRows()
-        self.doc.select(self._label_at(rows[0].row()) if rows else None)
+        if self._syncing:  # the selection follows the document; it is not a new pick
+            return
+        row = selected_row(self.table)
+        self.doc.select(None if row is None else self._label_at(row))
 
     def _show_selection(self, label: str | None) -> None:
         clashes = self.doc.clashes_of(label) if label else {}
         last = len(COLUMNS) - 1
         for f_label, r in self.rows.items():
-            item = self.table.item(r, last)
-            if item is None:
-                continue
             reasons = clashes.get(f_label)
-            item.setText("; ".join(str(x) for x in reasons) if reasons else "")
-            font = self.table.item(r, 0).font()
-            font.setBold(reasons is not None)
-            self.table.item(r, 0).setFont(font)
+            self.model.update_cell(r, last, text="; ".join(str(x) for x in reasons)
+                                   if reasons else "")
+            self.model.update_cell(r, 0, bold=reasons is not None)
         if label in self.rows:
             row = self.rows[label]
-            if not any(i.row() == row for i in self.table.selectionModel().selectedRows()):
-                self.table.blockSignals(True)
+            if selected_row(self.table) != row:
+                self._syncing = True
                 self.table.selectRow(row)
-                self.table.blockSignals(False)
-            self.table.scrollToItem(self.table.item(row, 0))
+                self._syncing = False
+            self.table.scrollTo(self.model.index(row, 0))
 
     def _menu(self, pos: QPoint) -> None:
-        item = self.table.itemAt(pos)
-        if item is None:
+        index = self.table.indexAt(pos)
+        if not index.isValid():
             return
-        label = self._label_at(item.row())
+        label = self._label_at(index.row())
         if label is None:
             return
         menu = QMenu(self)

@@ -6,21 +6,20 @@ from __future__ import annotations
 from types import SimpleNamespace
 from typing import Any
 
-from PySide6.QtCore import Qt, Signal
+from PySide6.QtCore import Signal
 from PySide6.QtWidgets import (
     QHBoxLayout,
     QHeaderView,
     QLabel,
     QPushButton,
-    QTableWidgetItem,
     QVBoxLayout,
     QWidget,
 )
 
-from leaguegrid.core import wording as numbers
+from leaguegrid.core import wording
 from leaguegrid.gui.document import LeagueDocument
 from leaguegrid.gui.pickers import pick_clash_partner, pick_pair
-from leaguegrid.gui.tables import row_table
+from leaguegrid.gui.table_model import RIGHT, Cell, RowsModel, row_view, selected_row
 
 COLUMNS = ("Clash reason", "Kind", "Clashes it makes", "Assignments if waived", "Gain",
            "Fewest rounds if waived", "Waived now")
@@ -42,10 +41,11 @@ class WhatIfView(QWidget):
                               "schedules. Waiving or adding a clash acts on a copy of the league: "
                               "the workbook is never changed, and Undo takes it back.")
         self.summary.setWordWrap(True)
-        self.table = row_table("whatifTable", COLUMNS)
+        self.model = RowsModel(COLUMNS, parent=self)
+        self.table = row_view("whatifTable", self.model)
         self.table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
         self.table.horizontalHeader().setSectionResizeMode(0, QHeaderView.ResizeMode.Stretch)
-        self.table.itemSelectionChanged.connect(self._selection)
+        self.table.selectionModel().selectionChanged.connect(self._selection)
         self.waive_button = QPushButton("Waive this clash")
         self.waive_button.setEnabled(False)
         self.waive_button.clicked.connect(self._toggle)
@@ -67,7 +67,7 @@ class WhatIfView(QWidget):
 
     def clear(self) -> None:
         self.rows = []
-        self.table.setRowCount(0)
+        self.model.set_rows([])
         self._show_state()
 
     def show_result(self, k: int, result: Any, by_text: dict[str, Any]) -> None:
@@ -83,28 +83,23 @@ class WhatIfView(QWidget):
                 self.rows.append(SimpleNamespace(reason=str(reason), kind=reason.kind, edges=[],
                                                  assignments_if_waived=None, gain=None,
                                                  min_rounds_if_waived=None))
-        base = numbers.cell_text(result.assignments)
+        base = wording.cell_text(result.assignments)
         self.summary.setText(
             f"For {k} rounds: {base} assignments now, fewest rounds {result.min_rounds}. "
             "Each row: the assignments if that reason were waived (every clash that exists only "
             "because of it removed) and the gain. Ranked by gain.")
-        self.table.setRowCount(len(self.rows))
-        for r, row in enumerate(self.rows):
-            values = (row.reason, row.kind, str(len(row.edges)),
-                      row.assignments_if_waived, row.gain, row.min_rounds_if_waived,
-                      "yes" if self._waived(row.reason) else "")
-            for c, value in enumerate(values):
-                text = numbers.cell_text(value) if c in (3, 4) else (
-                    "" if value is None else str(value))
-                item = QTableWidgetItem(text)
-                if c in (3, 4):
-                    item.setToolTip(numbers.full_text(value))
-                    item.setTextAlignment(Qt.AlignmentFlag.AlignRight
-                                          | Qt.AlignmentFlag.AlignVCenter)
-                if c == 0:
-                    item.setToolTip("\n".join(f"{e[0]} – {e[1]}" for e in row.edges[:30]))
-                self.table.setItem(r, c, item)
+        self.model.set_rows([self._cells(row) for row in self.rows])
         self._show_state()
+
+    def _cells(self, row: Any) -> list[Cell]:
+        """One reason's row; counts as the wording module writes them, exact in the tooltip."""
+        edges = "\n".join(f"{e[0]} – {e[1]}" for e in row.edges[:30])
+        counts = [Cell(wording.cell_text(v), tip=wording.full_text(v), align=RIGHT, value=v)
+                  for v in (row.assignments_if_waived, row.gain)]
+        fewest = row.min_rounds_if_waived
+        return [Cell(row.reason, tip=edges), Cell(str(row.kind)), Cell(str(len(row.edges))),
+                *counts, Cell("" if fewest is None else str(fewest)),
+                Cell("yes" if self._waived(row.reason) else "")]
 
     def _edits_key(self) -> str:
         edits = self.doc.edits
@@ -115,8 +110,8 @@ class WhatIfView(QWidget):
 
     def current_reason(self) -> Any:
         """The selected row's Reason (None when no row is selected)."""
-        rows = self.table.selectionModel().selectedRows()
-        return self.by_text.get(self.rows[rows[0].row()].reason) if rows else None
+        row = selected_row(self.table)
+        return None if row is None else self.by_text.get(self.rows[row].reason)
 
     def _selection(self) -> None:
         reason = self.current_reason()
@@ -152,7 +147,7 @@ class WhatIfView(QWidget):
         self.state.setText(" ".join(parts) + (" The counts include these changes; the "
                                               "workbook is unchanged." if parts else ""))
         for r, row in enumerate(self.rows):
-            item = self.table.item(r, len(COLUMNS) - 1)
-            if item is not None:
-                item.setText("yes" if self._waived(row.reason) else "")
+            if r < self.model.rowCount():
+                self.model.update_cell(r, len(COLUMNS) - 1,
+                                       text="yes" if self._waived(row.reason) else "")
         self._selection()
