@@ -13,14 +13,15 @@ from PySide6.QtWidgets import (
     QListWidgetItem,
     QSplitter,
     QStyle,
-    QTableWidget,
-    QTableWidgetItem,
+    QTableView,
     QTabWidget,
     QVBoxLayout,
     QWidget,
 )
 
 from leaguegrid.core.model import Problem
+from leaguegrid.core.wording import plural
+from leaguegrid.gui.table_model import Cell, RowsModel
 
 
 def column_letter(index: int) -> str:
@@ -46,7 +47,7 @@ class ImportView(QWidget):
         self.problems.setObjectName("problemList")
         self.problems.itemActivated.connect(self.go_to_problem)
         self.problems.itemClicked.connect(self.go_to_problem)
-        self.tables: dict[str, QTableWidget] = {}
+        self.tables: dict[str, QTableView] = {}
         self.first_rows: dict[str, int] = {}
         split = QSplitter(Qt.Orientation.Vertical)
         split.addWidget(self.sheets)
@@ -88,24 +89,29 @@ class ImportView(QWidget):
         warnings = len(problems) - errors
         self.problem_heading.setText(
             "No problems found." if not problems else
-            f"Problems: {errors} error{'s' * (errors != 1)}, "
-            f"{warnings} warning{'s' * (warnings != 1)} (click one to go to it)")
+            f"Problems: {plural(errors, 'error')}, {plural(warnings, 'warning')} "
+            "(click one to go to it)")
 
-    def _sheet_table(self, rows: list[tuple[int, list[Any]]]) -> QTableWidget:
+    def _sheet_table(self, rows: list[tuple[int, list[Any]]]) -> QTableView:
+        """A sheet as the spreadsheet shows it: lettered columns, its own row numbers."""
         width = max((len(cells) for _n, cells in rows), default=0)
-        table = QTableWidget(len(rows), width)
+        model = RowsModel([column_letter(i) for i in range(width)], parent=self)
+        model.set_rows([[Cell("" if v is None else str(v)) for v in cells] for _n, cells in rows],
+                       [str(n) for n, _cells in rows])
+        table = QTableView()
+        table.setModel(model)
         table.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
-        table.setHorizontalHeaderLabels([column_letter(i) for i in range(width)])
-        table.setVerticalHeaderLabels([str(n) for n, _cells in rows])
-        for r, (_n, cells) in enumerate(rows):
-            for c, value in enumerate(cells):
-                if value is not None and value != "":
-                    table.setItem(r, c, QTableWidgetItem(str(value)))
-        table.setProperty("rowNumbers", [n for n, _cells in rows])
         table.resizeColumnsToContents()
         return table
 
-    def locate(self, problem: Problem) -> tuple[QTableWidget, int, int] | None:
+    @staticmethod
+    def sheet_model(table: QTableView) -> RowsModel:
+        """The model behind one sheet's table."""
+        model = table.model()
+        assert isinstance(model, RowsModel)
+        return model
+
+    def locate(self, problem: Problem) -> tuple[QTableView, int, int] | None:
         """The table, row index and column index a problem points at (column -1 if unknown)."""
         if problem.sheet:
             table = self.tables.get(problem.sheet.casefold())
@@ -115,22 +121,18 @@ class ImportView(QWidget):
             return None
         if table is None:
             return None
-        numbers = table.property("rowNumbers") or []
+        model = self.sheet_model(table)
+        numbers = [int(t) for t in model.row_titles]
         row = numbers.index(problem.row) if problem.row in numbers else -1
         column = -1
         if problem.column:
             wanted = problem.column.strip().casefold()
-            header_row = next((r for r in range(table.rowCount())
-                               if any(table.item(r, c) for c in range(table.columnCount()))), 0)
-            for c in range(table.columnCount()):
-                item = table.item(header_row, c)
-                if item is not None and item.text().strip().casefold() == wanted:
-                    column = c
-                    break
-            else:
-                letters = [column_letter(i) for i in range(table.columnCount())]
-                if problem.column.upper() in letters:
-                    column = letters.index(problem.column.upper())
+            header = next((cells for cells in model.rows if any(c.text for c in cells)), [])
+            texts = [c.text.strip().casefold() for c in header]
+            if wanted in texts:
+                column = texts.index(wanted)
+            elif problem.column.upper() in model.columns:
+                column = model.columns.index(problem.column.upper())
         return table, row, column
 
     def go_to_problem(self, item: QListWidgetItem) -> None:
@@ -143,12 +145,9 @@ class ImportView(QWidget):
         if row < 0:
             return
         table.clearSelection()
+        index = table.model().index(row, max(column, 0))
         if column >= 0:
-            table.setCurrentCell(row, column)
+            table.setCurrentIndex(index)
         else:
             table.selectRow(row)
-        target = table.item(row, max(column, 0)) or table.model().index(row, max(column, 0))
-        if isinstance(target, QTableWidgetItem):
-            table.scrollToItem(target, QAbstractItemView.ScrollHint.PositionAtCenter)
-        else:
-            table.scrollTo(target, QAbstractItemView.ScrollHint.PositionAtCenter)
+        table.scrollTo(index, QAbstractItemView.ScrollHint.PositionAtCenter)

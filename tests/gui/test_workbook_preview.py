@@ -7,6 +7,7 @@ import os
 os.environ["QT_QPA_PLATFORM"] = "offscreen"
 
 from openpyxl import Workbook  # noqa: E402
+from PySide6.QtCore import Qt  # noqa: E402
 
 from leaguegrid.app.league import open_league, preview_sheets  # noqa: E402
 from leaguegrid.clashes.graph import build_clash_graph  # noqa: E402
@@ -26,10 +27,11 @@ def shown(qtbot, path, mapping=None):
 
 def current_cell(view):
     """(row number as shown, column header, text) of the preview's selected cell."""
-    table = view.sheets.currentWidget()
-    row, column = table.currentRow(), table.currentColumn()
-    return (table.verticalHeaderItem(row).text(), table.item(0, column).text(),
-            table.item(row, column).text())
+    model = view.sheets.currentWidget().model()
+    current = view.sheets.currentWidget().currentIndex()
+    row, column = current.row(), current.column()
+    return (model.headerData(row, Qt.Orientation.Vertical), model.index(0, column).data(),
+            current.data())
 
 
 def test_matched_columns_problems_point_at_the_files_own_cells(qtbot, tmp_path):
@@ -66,11 +68,11 @@ def test_preview_rows_follow_quoted_line_breaks_like_the_problems(qtbot, tmp_pat
     view, result = shown(qtbot, path)
     assert [str(p) for p in result.problems] == [
         f"{path}, row 3, column Away: 'Wrens': Home and Away are the same team"]
-    table = view.tables["fixtures"]
-    assert [table.verticalHeaderItem(r).text() for r in range(table.rowCount())] == [
+    model = view.tables["fixtures"].model()
+    assert [model.headerData(r, Qt.Orientation.Vertical) for r in range(model.rowCount())] == [
         "1", "2", "3"]
-    assert table.item(0, 0).text() == "Fixture"  # the byte-order mark is not part of it
-    assert table.item(1, 4).text() == "bring\nboots"
+    assert model.index(0, 0).data() == "Fixture"  # the byte-order mark is not part of it
+    assert model.index(1, 4).data() == "bring\nboots"
     view.go_to_problem(view.problems.item(0))
     assert current_cell(view) == ("3", "Away", "Wrens")
 
