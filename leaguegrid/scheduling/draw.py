@@ -20,6 +20,7 @@ import networkx as nx
 
 from leaguegrid import engine
 from leaguegrid.core.model import League, Schedule
+from leaguegrid.core.wording import plural
 from leaguegrid.scheduling.constraints import CountingModel, build_model
 from leaguegrid.scheduling.rules import check_generator, prove_impossible
 from leaguegrid.scheduling.score import BestOf, ScoreCard, best_of
@@ -148,7 +149,8 @@ def _by_search(
         if result.status == "budget":
             result.reasons = [*notes, *result.reasons]
         return result
-    notes.append(f"{len(found)} schedule(s) came from the rule search, which is not uniform")
+    notes.append(f"{plural(len(found), 'schedule')} came from the rule search, which is not "
+                 "uniform")
     return _finish(result, league, model, found, "search", terms, notes)
 
 

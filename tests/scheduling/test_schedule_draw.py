@@ -122,7 +122,7 @@ def test_search_takes_over_when_no_draw_meets_the_rules():
     assert out.schedule.notes == [
         "0 of 3 draws met every rule",
         "no uniform draw met every rule",
-        "1 schedule(s) came from the rule search, which is not uniform",
+        "1 schedule came from the rule search, which is not uniform",
     ]
     assert plan(lg, g, 6, seed=seed, rule_draws=3).schedule.assignment == \
         out.schedule.assignment
@@ -186,7 +186,7 @@ def test_count_beyond_its_share_hands_over_to_the_search(monkeypatch):
     assert out.schedule.notes == [
         "the exact count did not finish within its share of the budget, so no uniform draw "
         "was made",
-        "1 schedule(s) came from the rule search, which is not uniform",
+        "1 schedule came from the rule search, which is not uniform",
     ]
     assert check_schedule(lg, g, out.schedule) == []
 
