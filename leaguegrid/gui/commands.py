@@ -2,9 +2,11 @@
 
 from __future__ import annotations
 
+import networkx as nx
 from PySide6.QtGui import QUndoCommand
 
-from leaguegrid.core.model import Reason
+from leaguegrid.app import editing
+from leaguegrid.core.model import League, Reason
 from leaguegrid.gui.document import LeagueDocument
 
 _MISSING = object()
@@ -62,25 +64,23 @@ class TieCommand(_PairCommand):
 
 
 class MoveCommand(QUndoCommand):
-    """Move a fixture to another round of the chosen schedule."""
+    """Move a fixture to another round of the chosen schedule (app.editing.move_fixture: the
+    schedule after the move is a new one, marked as edited by hand)."""
 
-    def __init__(self, doc: LeagueDocument, label: str, to_round: int) -> None:
-        assert doc.schedule is not None
-        self.from_round = doc.schedule.assignment[label]
-        super().__init__(f"Move {label} from round {self.from_round} to round {to_round}")
-        self.doc, self.label, self.to_round = doc, label, to_round
-
-    def _set(self, round_: int) -> None:
-        schedule = self.doc.schedule
-        if schedule is not None:
-            schedule.assignment[self.label] = round_
-            self.doc.scheduleChanged.emit()
+    def __init__(self, doc: LeagueDocument, label: str, to_round: int, league: League,
+                 graph: nx.Graph) -> None:
+        before = doc.schedule
+        assert before is not None
+        from_round = before.assignment[label]
+        super().__init__(f"Move {label} from round {from_round} to round {to_round}")
+        self.doc, self.before = doc, before
+        self.after = editing.move_fixture(league, graph, before, label, to_round).schedule
 
     def redo(self) -> None:
-        self._set(self.to_round)
+        self.doc.set_schedule(self.after)
 
     def undo(self) -> None:
-        self._set(self.from_round)
+        self.doc.set_schedule(self.before)
 
 
 class WaiveCommand(QUndoCommand):

@@ -14,7 +14,7 @@ from PySide6.QtCore import QPointF, QRectF, QSize, Qt
 from PySide6.QtGui import QFontMetricsF, QPainter, QPainterPath, QPalette, QPen
 from PySide6.QtWidgets import QSizePolicy, QWidget
 
-from leaguegrid.core import wording as numbers
+from leaguegrid.core import wording
 
 
 @dataclass
@@ -51,9 +51,9 @@ class CountPlot(QWidget):
         """(rounds, log10 value, log10 range of an estimate or None) for every drawable point."""
         out = []
         for p in self.points:
-            y = numbers.log10_of(p.value)
+            y = wording.log10_of(p.value)
             if y is not None:
-                out.append((p.rounds, y, numbers.log10_range(p.value)))
+                out.append((p.rounds, y, wording.log10_range(p.value)))
         return out
 
     def paintEvent(self, event) -> None:  # noqa: N802 (Qt's name)
@@ -101,7 +101,7 @@ class CountPlot(QWidget):
             painter.setPen(grid)
             painter.drawLine(QPointF(area.left(), p.y()), QPointF(area.right(), p.y()))
             painter.setPen(axis)
-            label = "1" if e == 0 else f"10{str(e).translate(numbers.SUPERSCRIPT)}"
+            label = "1" if e == 0 else f"10{str(e).translate(wording.SUPERSCRIPT)}"
             painter.drawText(QRectF(0, p.y() - fm.height() / 2, area.left() - 6, fm.height()),
                              Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter, label)
         xstep = max(1, math.ceil((x1 - x0) / 12))

@@ -17,20 +17,11 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
+from leaguegrid.app.counting import CountReport
 from leaguegrid.core import wording
 from leaguegrid.gui.count_plot import CountPlot, PlotPoint
-from leaguegrid.gui.table_model import RIGHT, Cell, RowsModel, row_view, selected_row
-
-COLUMNS = ("Rounds", "Assignments", "All rounds used", "Groupings")
-FIELDS = ("rounds", "assignments", "all_rounds_used", "groupings")
-HEADER_TIPS = (
-    "K, the number of rounds available",
-    "Ways to give every fixture a round in 1..K with no clash inside a round (pins respected; "
-    "rounds may stay empty)",
-    "Assignments in which every one of the K rounds holds a fixture",
-    "Ways to split the fixtures into exactly K non-empty clash-free rounds, the order of the "
-    "rounds not mattering (clash graph without pins)",
-)
+from leaguegrid.gui.counts_model import CountsModel
+from leaguegrid.gui.table_model import row_view, selected_row
 
 
 class CountsView(QWidget):
@@ -40,11 +31,11 @@ class CountsView(QWidget):
 
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
-        self.report: Any = None
+        self.report: CountReport | None = None
         self.summary = QLabel("Open a league and compute its counts (Ctrl+R).")
         self.summary.setWordWrap(True)
         self.summary.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-        self.model = RowsModel(COLUMNS, HEADER_TIPS, parent=self)
+        self.model = CountsModel(self)
         self.table = row_view("countsTable", self.model)
         self.table.verticalHeader().setVisible(False)
         self.table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.Stretch)
@@ -82,55 +73,43 @@ class CountsView(QWidget):
 
     def clear(self, message: str = "") -> None:
         self.report = None
-        self.model.set_rows([])
+        self.model.set_report(None)
         self.polynomial.setPlainText("")
         self.copy_button.setEnabled(False)
         self.plot.set_data([], None)
         self.summary.setText(message or "No counts yet.")
 
-    def show_report(self, report: Any, rules_note: str = "") -> None:
-        """Fill the table, plot and polynomial from an analysis CountReport."""
+    def show_report(self, report: CountReport, rules_note: str = "") -> None:
+        """Fill the table, plot and polynomial from a count report."""
         self.report = report
         self.summary.setText(self._summary_text(report, rules_note))
-        self.model.set_rows([self._cells(report, row) for row in report.rows])
+        self.model.set_report(report)
         text = report.polynomial_text
-        self.polynomial.setPlainText(text if text else "not computed")
+        self.polynomial.setPlainText(text if text else wording.NOT_COMPUTED)
         self.copy_button.setEnabled(bool(text))
         self.plot.set_data([PlotPoint(row.rounds, row.assignments) for row in report.rows],
                            report.min_rounds)
 
-    @staticmethod
-    def _cells(report: Any, row: Any) -> list[Cell]:
-        """One row of the table: K, then each count as the wording module writes it (the
-        exact digits in the tooltip)."""
-        k = row.rounds
-        fewest = report.min_rounds == k
-        first = Cell(str(k), tip=f"{k} rounds: the fewest that can work" if fewest
-                     else f"{k} rounds", bold=fewest, align=RIGHT, value=k)
-        return [first, *(Cell(wording.cell_text(v), tip=wording.full_text(v), align=RIGHT,
-                               value=v) for v in (getattr(row, name) for name in FIELDS[1:]))]
-
     def values(self) -> list[dict[str, Any]]:
         """The values behind the table (exact ints, estimates or None), row by row."""
-        if self.report is None:
-            return []
-        return [{name: getattr(row, name) for name in FIELDS} for row in self.report.rows]
+        return self.model.values()
 
     def copy_polynomial(self) -> None:
         if self.report is not None and self.report.polynomial_text:
             QGuiApplication.clipboard().setText(f"P(k) = {self.report.polynomial_text}")
 
-    def _summary_text(self, report: Any, rules_note: str) -> str:
+    def _summary_text(self, report: CountReport, rules_note: str) -> str:
         low, high = report.min_rounds_bounds
         if report.min_rounds is not None:
             fewest = f"fewest rounds <b>{report.min_rounds}</b>"
         else:
             fewest = f"fewest rounds between {low} and {high} (not settled)"
-        parts = [f"{report.fixtures} fixtures, {report.clashes} clashes, {fewest}."]
+        parts = [f"{wording.plural(report.fixtures, 'fixture')}, "
+                 f"{wording.plural(report.clashes, 'clash', 'clashes')}, {fewest}."]
         if report.pinned:
             parts.append("Pins, ties and blocked rounds are respected in the assignments; the "
                          "polynomial and the groupings describe the clash graph itself.")
-        if getattr(report, "cancelled", False):
+        if report.cancelled:
             parts.append("Stopped before the end: what was not finished shows as "
                          f"“{wording.NOT_COMPUTED}”.")
         elif not report.complete:

@@ -20,7 +20,7 @@ class EditFlows:
     def move_fixture(self: Any, label: str, to_round: int) -> None:
         if self.doc.schedule is None or self.doc.schedule.assignment.get(label) == to_round:
             return
-        self.doc.undo.push(commands.MoveCommand(self.doc, label, to_round))
+        self.doc.undo.push(commands.MoveCommand(self.doc, label, to_round, *self.working()))
         self.clash_view.colour_by(self.doc.schedule)
 
     def pin_fixture(self: Any, label: str, round_: int | None) -> None:

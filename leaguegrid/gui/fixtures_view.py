@@ -6,11 +6,9 @@ from PySide6.QtCore import QPoint, Qt, Signal
 from PySide6.QtWidgets import QHeaderView, QLabel, QMenu, QVBoxLayout, QWidget
 
 from leaguegrid.gui.document import LeagueDocument
+from leaguegrid.gui.fixtures_model import FixturesModel
 from leaguegrid.gui.pickers import ask_round, pick_tie_partner
-from leaguegrid.gui.table_model import Cell, RowsModel, row_view, selected_row
-
-COLUMNS = ("Fixture", "Home", "Away", "Venue", "Pitch", "Division", "Pinned round",
-           "Round in schedule", "Clash with selected")
+from leaguegrid.gui.table_model import row_view, selected_row
 
 
 class FixturesView(QWidget):
@@ -23,7 +21,7 @@ class FixturesView(QWidget):
         super().__init__(parent)
         self.doc = doc
         self.note = QLabel("Right-click a fixture to pin it to a round or tie it to another.")
-        self.model = RowsModel(COLUMNS, parent=self)
+        self.model = FixturesModel(self)
         self.table = row_view("fixturesTable", self.model)
         self.table.horizontalHeader().setSectionResizeMode(
             QHeaderView.ResizeMode.ResizeToContents)
@@ -31,7 +29,6 @@ class FixturesView(QWidget):
         self.table.setContextMenuPolicy(Qt.ContextMenuPolicy.CustomContextMenu)
         self.table.customContextMenuRequested.connect(self._menu)
         self.table.selectionModel().selectionChanged.connect(self._picked)
-        self.rows: dict[str, int] = {}
         self._syncing = False
         layout = QVBoxLayout(self)
         layout.addWidget(self.note)
@@ -39,6 +36,11 @@ class FixturesView(QWidget):
         doc.selectionChanged.connect(self._show_selection)
         doc.scheduleChanged.connect(self.refresh)
         doc.graphChanged.connect(self._graph_changed)
+
+    @property
+    def rows(self) -> dict[str, int]:
+        """Fixture label -> its row in the table."""
+        return self.model.row_of
 
     def refresh(self) -> None:
         league = self.doc.league
@@ -49,44 +51,24 @@ class FixturesView(QWidget):
                 list(self.doc.edits.ties):
             tied.setdefault(a, []).append(b)
             tied.setdefault(b, []).append(a)
-        self.rows = {}
-        rows = []
-        for r, f in enumerate(fixtures):
-            self.rows[f.label] = r
-            pin = self.doc.pin_of(f.label)
-            in_schedule = schedule.assignment.get(f.label) if schedule is not None else None
-            first = Cell(f"{f.label}  (tied)" if f.label in tied else f.label,
-                         tip="Tied with " + ", ".join(tied[f.label]) if f.label in tied else None,
-                         value=f.label)
-            rest = (f.home, f.away, f.venue, f.pitch, f.division,
-                    "" if pin is None else str(pin) + (" (played)" if f.played else ""),
-                    "" if in_schedule is None else str(in_schedule), "")
-            rows.append([first, *(Cell(value or "") for value in rest)])
+        pins = {f.label: self.doc.pin_of(f.label) for f in fixtures}
+        rounds = dict(schedule.assignment) if schedule is not None else {}
         self._syncing = True
-        self.model.set_rows(rows)
+        self.model.set_fixtures(fixtures, pins, tied, rounds)
         self._syncing = False
         self._show_selection(self.doc.selected)
 
     def _graph_changed(self) -> None:
         self._show_selection(self.doc.selected)
 
-    def _label_at(self, row: int) -> str | None:
-        return self.model.cell(row, 0).value if 0 <= row < self.model.rowCount() else None
-
     def _picked(self) -> None:
         if self._syncing:  # the selection follows the document; it is not a new pick
             return
         row = selected_row(self.table)
-        self.doc.select(None if row is None else self._label_at(row))
+        self.doc.select(None if row is None else self.model.label(row))
 
     def _show_selection(self, label: str | None) -> None:
-        clashes = self.doc.clashes_of(label) if label else {}
-        last = len(COLUMNS) - 1
-        for f_label, r in self.rows.items():
-            reasons = clashes.get(f_label)
-            self.model.update_cell(r, last, text="; ".join(str(x) for x in reasons)
-                                   if reasons else "")
-            self.model.update_cell(r, 0, bold=reasons is not None)
+        self.model.set_clashes(self.doc.clashes_of(label) if label else {})
         if label in self.rows:
             row = self.rows[label]
             if selected_row(self.table) != row:
@@ -99,7 +81,7 @@ class FixturesView(QWidget):
         index = self.table.indexAt(pos)
         if not index.isValid():
             return
-        label = self._label_at(index.row())
+        label = self.model.label(index.row())
         if label is None:
             return
         menu = QMenu(self)

@@ -1,10 +1,9 @@
-"""A read-only Qt table model over rows of cells the views prepare from the app layer's data
-(Qt's model/view: the model holds the data, QTableView shows it), and the row-selecting view."""
+"""The read-only table model the window's tables share (Qt's model/view: a model holds the
+data, a QTableView shows it), and the row-selecting view over one."""
 
 from __future__ import annotations
 
 from collections.abc import Sequence
-from dataclasses import dataclass, replace
 from typing import Any
 
 from PySide6.QtCore import QAbstractTableModel, QModelIndex, QPersistentModelIndex, Qt
@@ -13,91 +12,65 @@ from PySide6.QtWidgets import QAbstractItemView, QTableView
 
 RIGHT = Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter
 Index = QModelIndex | QPersistentModelIndex
+Role = Qt.ItemDataRole
 
 
-@dataclass(frozen=True)
-class Cell:
-    """What one cell shows: its text, a tooltip, bold or not, its alignment, and a value behind
-    it (UserRole: a fixture label, a Reason, an exact count)."""
-
-    text: str = ""
-    tip: str | None = None
-    bold: bool = False
-    align: Any = None
-    value: Any = None
+def bold_font() -> QFont:
+    """The font of a cell shown in bold."""
+    font = QFont()
+    font.setBold(True)
+    return font
 
 
-class RowsModel(QAbstractTableModel):
-    """Rows of Cells under fixed column titles (with tooltips), optional row titles."""
+class ReadOnlyTable(QAbstractTableModel):
+    """Fixed column titles (with tooltips) over rows a subclass holds: it gives `row_count` and
+    `cell(row, column, role)`; row titles default to 1, 2, 3."""
 
     def __init__(self, columns: Sequence[str], tips: Sequence[str] = (),
                  parent: Any = None) -> None:
         super().__init__(parent)
         self.columns = list(columns)
         self.tips = list(tips)
-        self.rows: list[list[Cell]] = []
-        self.row_titles: list[str] = []
 
-    def set_rows(self, rows: list[list[Cell]], row_titles: Sequence[str] = ()) -> None:
-        """Replace every row (and the row titles, when given)."""
-        self.beginResetModel()
-        self.rows = [list(r) + [Cell()] * (len(self.columns) - len(r)) for r in rows]
-        self.row_titles = list(row_titles)
-        self.endResetModel()
+    def row_count(self) -> int:
+        raise NotImplementedError
 
-    def set_columns(self, columns: Sequence[str]) -> None:
-        """New column titles (the rows are cleared)."""
-        self.beginResetModel()
-        self.columns, self.rows, self.row_titles = list(columns), [], []
-        self.endResetModel()
+    def cell(self, row: int, column: int, role: int) -> Any:
+        raise NotImplementedError
 
-    def update_cell(self, row: int, column: int, **changes: Any) -> None:
-        """Change some of one cell's fields (text, tip, bold, ...) and tell the views."""
-        self.rows[row][column] = replace(self.rows[row][column], **changes)
-        index = self.index(row, column)
-        self.dataChanged.emit(index, index)
+    def row_title(self, row: int) -> str:
+        return str(row + 1)
 
-    def cell(self, row: int, column: int) -> Cell:
-        return self.rows[row][column]
+    def changed_column(self, column: int) -> None:
+        """Tell the views that every cell of one column may show something else now."""
+        if self.row_count():
+            self.dataChanged.emit(self.index(0, column),
+                                  self.index(self.row_count() - 1, column))
 
     def rowCount(self, parent: Index = QModelIndex()) -> int:  # noqa: N802, B008
-        return 0 if parent.isValid() else len(self.rows)
+        return 0 if parent.isValid() else self.row_count()
 
     def columnCount(self, parent: Index = QModelIndex()) -> int:  # noqa: N802, B008
         return 0 if parent.isValid() else len(self.columns)
 
-    def data(self, index: Index, role: int = Qt.ItemDataRole.DisplayRole) -> Any:
-        if not index.isValid():
+    def data(self, index: Index, role: int = Role.DisplayRole) -> Any:
+        if not index.isValid() or index.row() >= self.row_count():
             return None
-        cell = self.rows[index.row()][index.column()]
-        if role == Qt.ItemDataRole.DisplayRole:
-            return cell.text
-        if role == Qt.ItemDataRole.ToolTipRole:
-            return cell.tip
-        if role == Qt.ItemDataRole.FontRole and cell.bold:
-            font = QFont()
-            font.setBold(True)
-            return font
-        if role == Qt.ItemDataRole.TextAlignmentRole and cell.align is not None:
-            return cell.align
-        if role == Qt.ItemDataRole.UserRole:
-            return cell.value
-        return None
+        return self.cell(index.row(), index.column(), role)
 
     def headerData(self, section: int, orientation: Qt.Orientation,  # noqa: N802
-                   role: int = Qt.ItemDataRole.DisplayRole) -> Any:
+                   role: int = Role.DisplayRole) -> Any:
         horizontal = orientation == Qt.Orientation.Horizontal
-        titles = self.columns if horizontal else self.row_titles
-        if role == Qt.ItemDataRole.DisplayRole:
-            if section < len(titles):
-                return titles[section]
-            return None if horizontal else str(section + 1)
-        if role == Qt.ItemDataRole.ToolTipRole and horizontal and section < len(self.tips):
+        if role == Role.DisplayRole:
+            if horizontal:
+                return self.columns[section] if section < len(self.columns) else None
+            return self.row_title(section)
+        if role == Role.ToolTipRole and horizontal and section < len(self.tips):
             return self.tips[section]
         return None
 
 
-def row_view(name: str, model: RowsModel) -> QTableView:
+def row_view(name: str, model: ReadOnlyTable) -> QTableView:
     """A table view of `model` whose rows are selected whole, one at a time (`name` is its
     object name, for styles)."""
     view = QTableView()

@@ -3,9 +3,6 @@
 
 from __future__ import annotations
 
-from types import SimpleNamespace
-from typing import Any
-
 from PySide6.QtCore import Signal
 from PySide6.QtWidgets import (
     QHBoxLayout,
@@ -17,12 +14,12 @@ from PySide6.QtWidgets import (
 )
 
 from leaguegrid.core import wording
+from leaguegrid.core.model import Reason
 from leaguegrid.gui.document import LeagueDocument
 from leaguegrid.gui.pickers import pick_clash_partner, pick_pair
-from leaguegrid.gui.table_model import RIGHT, Cell, RowsModel, row_view, selected_row
-
-COLUMNS = ("Clash reason", "Kind", "Clashes it makes", "Assignments if waived", "Gain",
-           "Fewest rounds if waived", "Waived now")
+from leaguegrid.gui.reasons_model import ReasonsModel
+from leaguegrid.gui.table_model import row_view, selected_row
+from leaguegrid.scheduling.whatif import Waived, WhatIf
 
 
 class WhatIfView(QWidget):
@@ -34,14 +31,13 @@ class WhatIfView(QWidget):
     def __init__(self, doc: LeagueDocument, parent: QWidget | None = None) -> None:
         super().__init__(parent)
         self.doc = doc
-        self.rows: list[Any] = []
-        self.by_text: dict[str, Any] = {}
+        self.by_text: dict[str, Reason] = {}
         self.ranked_with = ""
         self.summary = QLabel("Rank the clash reasons (Ctrl+I) to see which ones cost the most "
                               "schedules. Waiving or adding a clash acts on a copy of the league: "
                               "the workbook is never changed, and Undo takes it back.")
         self.summary.setWordWrap(True)
-        self.model = RowsModel(COLUMNS, parent=self)
+        self.model = ReasonsModel(self)
         self.table = row_view("whatifTable", self.model)
         self.table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
         self.table.horizontalHeader().setSectionResizeMode(0, QHeaderView.ResizeMode.Stretch)
@@ -65,50 +61,43 @@ class WhatIfView(QWidget):
         doc.edited.connect(self._show_state)
         doc.loaded.connect(self.clear)
 
+    @property
+    def rows(self) -> list[Waived]:
+        """The reasons listed, in the table's order."""
+        return self.model.rows
+
     def clear(self) -> None:
-        self.rows = []
-        self.model.set_rows([])
+        self.model.set_rows([], set())
         self._show_state()
 
-    def show_result(self, k: int, result: Any, by_text: dict[str, Any]) -> None:
+    def show_result(self, k: int, result: WhatIf, by_text: dict[str, Reason]) -> None:
         """Fill the table from the schedules' what-if result for K rounds; `by_text` maps each
         reason's text to its Reason. Reasons waived now are listed last, to restore them."""
         self.by_text = dict(by_text)
         self.ranked_with = self._edits_key()
-        self.rows = list(result.reasons)
-        listed = {row.reason for row in self.rows}
+        rows = list(result.reasons)
+        listed = {row.reason for row in rows}
         for reason in self.doc.edits.waived:
             if str(reason) not in listed:
                 self.by_text[str(reason)] = reason
-                self.rows.append(SimpleNamespace(reason=str(reason), kind=reason.kind, edges=[],
-                                                 assignments_if_waived=None, gain=None,
-                                                 min_rounds_if_waived=None))
+                rows.append(Waived(str(reason), reason.kind, [], None, None, None))
         base = wording.cell_text(result.assignments)
         self.summary.setText(
-            f"For {k} rounds: {base} assignments now, fewest rounds {result.min_rounds}. "
+            f"For {wording.plural(k, 'round')}: {base} assignments now, fewest rounds "
+            f"{result.min_rounds}. "
             "Each row: the assignments if that reason were waived (every clash that exists only "
             "because of it removed) and the gain. Ranked by gain.")
-        self.model.set_rows([self._cells(row) for row in self.rows])
+        self.model.set_rows(rows, self._waived_texts())
         self._show_state()
-
-    def _cells(self, row: Any) -> list[Cell]:
-        """One reason's row; counts as the wording module writes them, exact in the tooltip."""
-        edges = "\n".join(f"{e[0]} – {e[1]}" for e in row.edges[:30])
-        counts = [Cell(wording.cell_text(v), tip=wording.full_text(v), align=RIGHT, value=v)
-                  for v in (row.assignments_if_waived, row.gain)]
-        fewest = row.min_rounds_if_waived
-        return [Cell(row.reason, tip=edges), Cell(str(row.kind)), Cell(str(len(row.edges))),
-                *counts, Cell("" if fewest is None else str(fewest)),
-                Cell("yes" if self._waived(row.reason) else "")]
 
     def _edits_key(self) -> str:
         edits = self.doc.edits
         return repr((sorted(edits.pins.items()), edits.ties, edits.waived, edits.added))
 
-    def _waived(self, text: str) -> bool:
-        return self.by_text.get(text) in self.doc.edits.waived
+    def _waived_texts(self) -> set[str]:
+        return {str(reason) for reason in self.doc.edits.waived}
 
-    def current_reason(self) -> Any:
+    def current_reason(self) -> Reason | None:
         """The selected row's Reason (None when no row is selected)."""
         row = selected_row(self.table)
         return None if row is None else self.by_text.get(self.rows[row].reason)
@@ -146,8 +135,5 @@ class WhatIfView(QWidget):
                          "(Ctrl+I) to update it.")
         self.state.setText(" ".join(parts) + (" The counts include these changes; the "
                                               "workbook is unchanged." if parts else ""))
-        for r, row in enumerate(self.rows):
-            if r < self.model.rowCount():
-                self.model.update_cell(r, len(COLUMNS) - 1,
-                                       text="yes" if self._waived(row.reason) else "")
+        self.model.set_waived(self._waived_texts())
         self._selection()

@@ -109,8 +109,8 @@ class WorkFlows:
         self.clash_view.colour_by(schedule)
         if schedule is not None:
             self.tabs.setCurrentWidget(self.schedule_view)
-            self.stage_label.setText(f"Schedule drawn for {schedule.rounds} rounds "
-                                     f"(seed {schedule.seed}).")
+            rounds = wording.plural(schedule.rounds, "round")
+            self.stage_label.setText(f"Schedule drawn for {rounds} (seed {schedule.seed}).")
         else:
             self.stage_label.setText(outcome.message)
         self.scheduleReady.emit(schedule)
@@ -127,7 +127,7 @@ class WorkFlows:
         def done(outcome: what.WhatIfOutcome) -> None:
             self.whatif_view.show_result(k, outcome.report, outcome.reasons)
             self.tabs.setCurrentWidget(self.whatif_view)
-            self.stage_label.setText(f"Clash reasons ranked for {k} rounds.")
+            self.stage_label.setText(f"Clash reasons ranked for {wording.plural(k, 'round')}.")
 
         self.runner.start(Job("Ranking clash reasons", work, done, budget=WHATIF_BUDGET))
 

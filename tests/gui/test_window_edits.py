@@ -1,5 +1,6 @@
-"""Pins, ties, moves, waived and added clashes from the window: each changes the counts exactly
-as the engine says, and Undo/Redo take it back. Project files and column matching."""
+"""Pins, ties, moves (dragged or asked for), waived and added clashes from the window: each
+changes the counts exactly as the engine says, and Undo/Redo take it back. Project files and
+column matching."""
 
 import os
 
@@ -11,11 +12,14 @@ from pathlib import Path  # noqa: E402
 
 import networkx as nx  # noqa: E402
 from openpyxl import load_workbook  # noqa: E402
-from PySide6.QtWidgets import QFileDialog, QInputDialog  # noqa: E402
+from PySide6.QtCore import Qt  # noqa: E402
+from PySide6.QtGui import QDragEnterEvent, QDragMoveEvent, QDropEvent  # noqa: E402
+from PySide6.QtWidgets import QApplication, QFileDialog, QInputDialog  # noqa: E402
 
 from leaguegrid import engine  # noqa: E402
 from leaguegrid.clashes.graph import build_clash_graph, without_reasons  # noqa: E402
 from leaguegrid.gui import mapping_dialog  # noqa: E402
+from leaguegrid.gui.schedule_model import fixture_mime  # noqa: E402
 from leaguegrid.io.read.league_reader import load_league  # noqa: E402
 
 SMALL = Path(__file__).resolve().parents[2] / "demo_leagues" / "small.xlsx"
@@ -117,7 +121,7 @@ def test_moving_a_fixture_says_at_once_what_it_breaks(qtbot, window, tmp_path):
     status = window.schedule_view.status.text()
     assert status.startswith("✘ This schedule breaks")
     assert label in status and other in status and "team Herons" in status
-    assert window.schedule_view.chips[label].text().startswith("⚠")
+    assert window.schedule_view.model.chip_text(label).startswith("⚠")
     window.act_undo.trigger()
     assert window.schedule_view.status.text().startswith("✔")
     assert window.doc.schedule.assignment[label] != schedule.assignment[other]
@@ -264,3 +268,29 @@ def test_export_dialog_shows_what_is_written_and_keeps_reasons_private(
     for label in window.doc.schedule.assignment:
         assert csv_text.count(label) >= 1
     assert "One set of goals" not in csv_text
+
+
+def test_dropping_a_fixture_on_another_rounds_cell_moves_it(qtbot, window, tmp_path):
+    open_small(qtbot, window, tmp_path)
+    window.act_draw.trigger()
+    wait_idle(qtbot, window)
+    window.tabs.setCurrentWidget(window.schedule_view)
+    label = "Herons v Wrens"
+    before = window.doc.schedule.assignment[label]
+    target = 1 if before != 1 else 2
+    grid, model = window.schedule_view.grid, window.schedule_view.model
+    column = next(c for c in range(model.columnCount())
+                  if label in model.labels_at(before - 1, c))
+    point = grid.visualRect(model.index(target - 1, column)).center()
+    data = fixture_mime(label)
+    move, left, none = (Qt.DropAction.MoveAction, Qt.MouseButton.LeftButton,
+                        Qt.KeyboardModifier.NoModifier)
+    for event in (QDragEnterEvent(point, move, data, left, none),
+                  QDragMoveEvent(point, move, data, left, none),
+                  QDropEvent(point.toPointF(), move, data, left, none)):
+        QApplication.sendEvent(grid.viewport(), event)
+    assert window.doc.schedule.assignment[label] == target
+    assert window.doc.schedule.method == "edited"
+    assert window.doc.undo.undoText() == f"Move {label} from round {before} to round {target}"
+    window.act_undo.trigger()
+    assert window.doc.schedule.assignment[label] == before

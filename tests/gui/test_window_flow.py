@@ -92,7 +92,7 @@ def test_demo_league_counts_draw_and_export(qtbot, window, settings, monkeypatch
     assert schedule.rounds == window.report.min_rounds
     assert check_schedule(league, graph, schedule) == []
     assert window.schedule_view.status.text().startswith("✔")
-    assert set(window.schedule_view.chips) == {f.label for f in league.fixtures}
+    assert set(window.schedule_view.model.labels()) == {f.label for f in league.fixtures}
 
     target = tmp_path / "calendar.xlsx"
     export_through_action(window, monkeypatch, target)

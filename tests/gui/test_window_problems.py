@@ -34,7 +34,8 @@ def test_problems_are_listed_and_each_goes_to_its_cell(qtbot, window, tmp_path):
     window.open_path(str(path))
     wait_idle(qtbot, window)
     view = window.import_view
-    texts = [view.problems.item(i).text() for i in range(view.problems.count())]
+    problems = view.problem_model
+    texts = [problems.index(i).data() for i in range(problems.rowCount())]
     assert texts == [
         f"{path}, sheet Fixtures, row 2, column Away: 'Otters': Home and Away are the same team",
         f"{path}, sheet Fixtures, row 4, column Away: the row needs a Fixture label or both "
@@ -45,12 +46,12 @@ def test_problems_are_listed_and_each_goes_to_its_cell(qtbot, window, tmp_path):
     assert view.problem_heading.text() == ("Problems: 3 errors, 0 warnings "
                                            "(click one to go to it)")
     assert window.tabs.currentWidget() is view
-    view.go_to_problem(view.problems.item(2))
+    view.go_to_problem(problems.index(2))
     table = view.sheets.currentWidget()
     assert view.sheets.tabText(view.sheets.currentIndex()) == "Clashes"
     assert (table.currentIndex().row(), table.currentIndex().column()) == (1, 0)
     assert table.model().headerData(1, Qt.Orientation.Vertical) == "2"
-    view.go_to_problem(view.problems.item(0))
+    view.go_to_problem(problems.index(0))
     table = view.sheets.currentWidget()
     assert table.currentIndex().data() == "Otters"
     assert table.currentIndex().column() == 2
@@ -67,8 +68,9 @@ def test_a_file_that_is_not_a_workbook_is_reported_not_raised(qtbot, window, tmp
     window.open_path(str(path))
     wait_idle(qtbot, window)
     assert window.windowTitle() == "LeagueGrid — junk.xlsx"
-    assert window.import_view.problems.count() == 1
-    assert window.import_view.problems.item(0).text() == (
+    problems = window.import_view.problem_model
+    assert problems.rowCount() == 1
+    assert problems.index(0).data() == (
         f"{path}: the file is truncated or damaged: it begins like an Excel workbook but is "
         "incomplete")
     assert window.import_view.sheets.count() == 0
@@ -77,7 +79,7 @@ def test_a_file_that_is_not_a_workbook_is_reported_not_raised(qtbot, window, tmp
 def test_a_missing_file_is_reported(qtbot, window, tmp_path):
     window.open_path(str(tmp_path / "nowhere.xlsx"))
     wait_idle(qtbot, window)
-    assert window.import_view.problems.count() >= 1
+    assert window.import_view.problem_model.rowCount() >= 1
     assert window.last_error is None
 
 

@@ -42,7 +42,7 @@ def test_matched_columns_problems_point_at_the_files_own_cells(qtbot, tmp_path):
     assert [str(p) for p in result.problems] == [
         f"{path}, row 3, column Away team: 'Wrens': Home and Away are the same team"]
     assert result.league.source == str(path)
-    view.go_to_problem(view.problems.item(0))
+    view.go_to_problem(view.problem_model.index(0))
     assert current_cell(view) == ("3", "Away team", "Wrens")
     assert sorted(p.name for p in tmp_path.iterdir()) == ["clubs.csv"]  # no copy anywhere
 
@@ -73,7 +73,7 @@ def test_preview_rows_follow_quoted_line_breaks_like_the_problems(qtbot, tmp_pat
         "1", "2", "3"]
     assert model.index(0, 0).data() == "Fixture"  # the byte-order mark is not part of it
     assert model.index(1, 4).data() == "bring\nboots"
-    view.go_to_problem(view.problems.item(0))
+    view.go_to_problem(view.problem_model.index(0))
     assert current_cell(view) == ("3", "Away", "Wrens")
 
 
