@@ -13,6 +13,7 @@ from leaguegrid.app.export import ExportFailed, ExportTargets
 from leaguegrid.core.wording import plural
 from leaguegrid.gui.export_dialog import ExportDialog
 from leaguegrid.gui.mapping_dialog import MappingDialog, load_mapping, save_mapping
+from leaguegrid.gui.notices import show_dialog
 from leaguegrid.gui.worker import Job, call
 
 MAX_RECENT = 8
@@ -90,12 +91,16 @@ class FileFlows:
         """Match the workbook's columns to ours; the choice is remembered for this file."""
         if not self.doc.path:
             return
-        dialog = MappingDialog(league.preview_sheets(self.doc.path), self.doc.mapping or {},
-                               self)
-        if dialog.exec():
+        path = self.doc.path
+        dialog = MappingDialog(league.preview_sheets(path), self.doc.mapping or {}, self)
+
+        def chosen() -> None:
             mapping = dialog.mapping()
-            save_mapping(self.settings, self.doc.path, mapping)
-            self._read(self.doc.path, mapping)
+            save_mapping(self.settings, path, mapping)
+            self._read(path, mapping)
+
+        dialog.accepted.connect(chosen)
+        show_dialog(dialog)
 
     # recent files -----------------------------------------------------------------------
     def recent_files(self: Any) -> list[str]:
@@ -178,8 +183,8 @@ class FileFlows:
             return
         dialog = ExportDialog(self, self.doc.working_league(), self.doc.schedule,
                               self.settings)
-        if dialog.exec():
-            self.export(dialog.choices())
+        dialog.accepted.connect(lambda: self.export(dialog.choices()))
+        show_dialog(dialog)
 
     def export(self: Any, choices: dict[str, str | None]) -> list[str]:
         """Write what `choices` names (xlsx, csv: file paths; ics: a folder); returns paths."""

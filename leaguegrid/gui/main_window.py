@@ -8,7 +8,7 @@ from typing import Any
 
 from PySide6.QtCore import QByteArray, QSettings, QTimer, Signal
 from PySide6.QtGui import QCloseEvent, QDragEnterEvent, QDropEvent
-from PySide6.QtWidgets import QMainWindow, QMessageBox, QTabWidget, QWidget
+from PySide6.QtWidgets import QMainWindow, QTabWidget, QWidget
 
 from leaguegrid import __version__
 from leaguegrid.core.wording import CAUTION
@@ -20,7 +20,7 @@ from leaguegrid.gui.edit_flows import EditFlows
 from leaguegrid.gui.file_flows import FileFlows
 from leaguegrid.gui.fixtures_view import FixturesView
 from leaguegrid.gui.import_view import ImportView
-from leaguegrid.gui.notices import APP_NAME, warn
+from leaguegrid.gui.notices import APP_NAME, inform, warn
 from leaguegrid.gui.schedule_view import ScheduleView
 from leaguegrid.gui.whatif_view import WhatIfView
 from leaguegrid.gui.work_flows import WorkFlows
@@ -173,8 +173,7 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, QMainWindow):
         """Record `text` as the last problem, show it, and say it in a box that never blocks."""
         self.last_error = text
         self.stage_label.setText(text)
-        if self.isVisible():
-            warn(self, f"{headline}\n\n{text}" if headline else text)
+        warn(self, f"{headline}\n\n{text}" if headline else text)
 
     # drag and drop, about -------------------------------------------------------------------
     def dragEnterEvent(self, event: QDragEnterEvent) -> None:  # noqa: N802
@@ -190,7 +189,7 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, QMainWindow):
             event.acceptProposedAction()
 
     def about(self) -> None:
-        QMessageBox.about(self, f"About {APP_NAME}",
-                          f"<b>{APP_NAME} {__version__}</b><p>Counts the clash-free ways to put "
-                          f"a league's fixtures into rounds, finds the fewest rounds, draws "
-                          f"schedules and writes calendars.</p><p>{CAUTION}</p>")
+        inform(self, f"About {APP_NAME}",
+               f"<b>{APP_NAME} {__version__}</b><p>Counts the clash-free ways to put a league's "
+               f"fixtures into rounds, finds the fewest rounds, draws schedules and writes "
+               f"calendars.</p><p>{CAUTION}</p>")

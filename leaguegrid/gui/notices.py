@@ -1,19 +1,34 @@
-"""Messages to the coordinator that never block the window: a warning box opened window-modal
-(QMessageBox.open), so work and the event loop go on while it is shown."""
+"""Messages and dialogs that never block the window: each opened window-modal (open(), not
+exec()), so work and the event loop go on while it is shown; what it answers comes by signal."""
 
 from __future__ import annotations
 
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import QMessageBox, QWidget
+from PySide6.QtWidgets import QDialog, QMessageBox, QWidget
 
 APP_NAME = "LeagueGrid"
 
 
+def show_dialog(dialog: QDialog) -> QDialog:
+    """Open `dialog` over its parent without waiting for it; it is deleted once closed."""
+    dialog.setAttribute(Qt.WidgetAttribute.WA_DeleteOnClose)
+    dialog.setWindowModality(Qt.WindowModality.WindowModal)
+    dialog.open()
+    return dialog
+
+
 def warn(parent: QWidget, text: str) -> QMessageBox:
-    """Show `text` in a warning box over `parent` without waiting for it to be closed."""
+    """Show `text` in a warning box over `parent`."""
     box = QMessageBox(QMessageBox.Icon.Warning, APP_NAME, text, QMessageBox.StandardButton.Ok,
                       parent)
-    box.setAttribute(Qt.WidgetAttribute.WA_DeleteOnClose)
-    box.setWindowModality(Qt.WindowModality.WindowModal)
-    box.open()
+    show_dialog(box)
+    return box
+
+
+def inform(parent: QWidget, title: str, rich_text: str) -> QMessageBox:
+    """Show `rich_text` (HTML) in an information box titled `title` over `parent`."""
+    box = QMessageBox(QMessageBox.Icon.Information, title, rich_text,
+                      QMessageBox.StandardButton.Ok, parent)
+    box.setTextFormat(Qt.TextFormat.RichText)
+    show_dialog(box)
     return box

@@ -8,7 +8,7 @@ os.environ["QT_QPA_PLATFORM"] = "offscreen"
 from pathlib import Path  # noqa: E402
 
 import pytest  # noqa: E402
-from PySide6.QtWidgets import QMessageBox  # noqa: E402
+from PySide6.QtWidgets import QApplication, QMessageBox  # noqa: E402
 
 from leaguegrid.gui import app  # noqa: E402
 from leaguegrid.io.write.calendar_xlsx import CAUTION  # noqa: E402
@@ -23,14 +23,14 @@ def test_title_is_leaguegrid_and_the_league_name(qtbot, window):
     assert window.windowTitle() == "LeagueGrid — Hollowmere Junior League"
 
 
-def test_about_shows_the_calendars_caution_word_for_word(window, monkeypatch):
-    shown = []
-    monkeypatch.setattr(QMessageBox, "about",
-                        staticmethod(lambda _parent, title, text: shown.append((title, text))))
-    window.act_about.trigger()
-    assert len(shown) == 1
-    assert shown[0][0] == "About LeagueGrid"
-    assert shown[0][1].endswith(f"<p>{CAUTION}</p>")
+def test_about_shows_the_calendars_caution_word_for_word(qtbot, window):
+    window.act_about.trigger()  # opens without waiting: the test goes on with the box shown
+    qtbot.waitUntil(lambda: isinstance(QApplication.activeModalWidget(), QMessageBox))
+    box = QApplication.activeModalWidget()
+    assert box.windowTitle() == "About LeagueGrid"
+    assert box.text().endswith(f"<p>{CAUTION}</p>")
+    box.accept()
+    qtbot.waitUntil(lambda: QApplication.activeModalWidget() is None)
 
 
 class Started(Exception):

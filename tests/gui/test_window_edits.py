@@ -192,8 +192,7 @@ def test_project_saves_pins_and_schedule_and_notices_a_changed_workbook(
                                         "was saved")
 
 
-def test_column_matching_is_applied_and_remembered(qtbot, window, settings, tmp_path,
-                                                   monkeypatch):
+def test_column_matching_is_applied_and_remembered(qtbot, window, settings, tmp_path):
     path = tmp_path / "clubs.csv"
     path.write_text("Home team;Away team;Ground\nOtters;Herons;Alder Green\n"
                     "Wrens;Badgers;Alder Green\nOtters;Wrens;Millbrook\n", encoding="utf-8")
@@ -201,14 +200,14 @@ def test_column_matching_is_applied_and_remembered(qtbot, window, settings, tmp_
     qtbot.waitUntil(lambda: window.doc.result is not None and not window.runner.busy)
     assert not window.doc.usable
 
-    def choose(dialog):
-        dialog.combos["Home"].setCurrentText("Home team")
-        dialog.combos["Away"].setCurrentText("Away team")
-        dialog.combos["Venue"].setCurrentText("Ground")
-        return 1
-
-    monkeypatch.setattr(mapping_dialog.MappingDialog, "exec", choose)
-    window.act_mapping.trigger()
+    window.act_mapping.trigger()  # the dialog opens without waiting for an answer
+    qtbot.waitUntil(lambda: isinstance(QApplication.activeModalWidget(),
+                                       mapping_dialog.MappingDialog))
+    dialog = QApplication.activeModalWidget()
+    dialog.combos["Home"].setCurrentText("Home team")
+    dialog.combos["Away"].setCurrentText("Away team")
+    dialog.combos["Venue"].setCurrentText("Ground")
+    dialog.accept()
     qtbot.waitUntil(lambda: window.report is not None, timeout=30_000)
     wait_idle(qtbot, window)
     assert window.doc.usable

@@ -13,7 +13,7 @@ from pathlib import Path  # noqa: E402
 
 import pytest  # noqa: E402
 from openpyxl import load_workbook  # noqa: E402
-from PySide6.QtWidgets import QFileDialog  # noqa: E402
+from PySide6.QtWidgets import QApplication, QFileDialog  # noqa: E402
 
 from leaguegrid import engine  # noqa: E402
 from leaguegrid.clashes.graph import build_clash_graph  # noqa: E402
@@ -42,16 +42,16 @@ def open_through_action(qtbot, win, monkeypatch, path):
     wait_idle(qtbot, win)
 
 
-def export_through_action(win, monkeypatch, target: Path):
-    """File > Export with the dialog accepted for an Excel calendar at `target` only."""
-    def accept(dialog):
-        dialog.xlsx_path.setText(str(target))
-        dialog.ics_on.setChecked(False)
-        dialog.csv_on.setChecked(False)
-        return 1
-
-    monkeypatch.setattr(export_dialog.ExportDialog, "exec", accept)
+def export_through_action(qtbot, win, target: Path):
+    """File > Export, the dialog's Write files clicked for an Excel calendar at `target` only."""
     win.act_export.trigger()
+    qtbot.waitUntil(lambda: isinstance(QApplication.activeModalWidget(),
+                                       export_dialog.ExportDialog))
+    dialog = QApplication.activeModalWidget()
+    dialog.xlsx_path.setText(str(target))
+    dialog.ics_on.setChecked(False)
+    dialog.csv_on.setChecked(False)
+    dialog.write_button.click()
 
 
 @pytest.mark.parametrize("name", FLOW_DEMOS)
@@ -95,7 +95,7 @@ def test_demo_league_counts_draw_and_export(qtbot, window, settings, monkeypatch
     assert set(window.schedule_view.model.labels()) == {f.label for f in league.fixtures}
 
     target = tmp_path / "calendar.xlsx"
-    export_through_action(window, monkeypatch, target)
+    export_through_action(qtbot, window, target)
     assert window.last_export == [str(target)]
     sheet = load_workbook(target, read_only=True)["Calendar"]
     rows = list(sheet.iter_rows(values_only=True))

@@ -8,6 +8,7 @@ os.environ["QT_QPA_PLATFORM"] = "offscreen"
 from openpyxl import Workbook  # noqa: E402
 from PySide6.QtCore import QMimeData, QPointF, Qt, QUrl  # noqa: E402
 from PySide6.QtGui import QDropEvent  # noqa: E402
+from PySide6.QtWidgets import QApplication, QMessageBox  # noqa: E402
 
 
 def wait_idle(qtbot, win):
@@ -94,3 +95,17 @@ def test_dropping_a_workbook_on_the_window_opens_it(qtbot, window, tmp_path):
     wait_idle(qtbot, window)
     assert window.doc.path == str(path)
     assert window.recent_files()[0] == str(path)
+
+
+def test_a_bad_project_is_said_in_a_box_that_does_not_wait(qtbot, window, tmp_path):
+    path = tmp_path / "season.leaguegrid"
+    path.write_text('["a list, not a project"]', encoding="utf-8")
+    window.open_path(str(path))  # returns with the box open: nothing waits for its OK
+    message = f"{path} is not a LeagueGrid project file"
+    assert window.last_error == message
+    assert window.stage_label.text() == message
+    qtbot.waitUntil(lambda: isinstance(QApplication.activeModalWidget(), QMessageBox))
+    box = QApplication.activeModalWidget()
+    assert (box.text(), box.icon()) == (message, QMessageBox.Icon.Warning)
+    box.accept()
+    qtbot.waitUntil(lambda: QApplication.activeModalWidget() is None)
