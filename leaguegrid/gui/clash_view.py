@@ -7,7 +7,7 @@ import math
 from typing import Any
 
 import networkx as nx
-from PySide6.QtCore import QPointF, QRectF, Qt
+from PySide6.QtCore import QPointF, Qt
 from PySide6.QtGui import QBrush, QPainter, QPainterPath, QPainterPathStroker, QPalette, QPen
 from PySide6.QtWidgets import (
     QGraphicsEllipseItem,
@@ -243,7 +243,3 @@ class ClashGraphView(QWidget):
         rect = self.scene.itemsBoundingRect()
         if not rect.isEmpty():
             self.view.fitInView(rect.adjusted(-20, -20, 20, 20), Qt.AspectRatioMode.KeepAspectRatio)
-
-    def node_rect(self, label: str) -> QRectF:
-        """Where a fixture's node is, in scene coordinates (for tests and tooltips)."""
-        return self.nodes[label].sceneBoundingRect()

@@ -14,7 +14,7 @@ import threading
 import time
 import traceback
 
-from leaguegrid.engine import Hooks
+from leaguegrid.engine import Cancelled, Hooks
 from leaguegrid.gui.procworker import receive, send
 
 PROGRESS_EVERY = 0.05  # seconds between progress messages
@@ -47,7 +47,7 @@ def _run(message: tuple, out_fd: int, cancel: threading.Event) -> None:
     try:
         result = target(*args, hooks=Hooks(progress, cancel, budget), **kwargs)
     except Exception as exc:  # reported to the window as text
-        if cancel.is_set() or type(exc).__name__ == "Cancelled":
+        if cancel.is_set() or isinstance(exc, Cancelled):
             send(out_fd, ("cancelled",))
         else:
             send(out_fd, ("error", traceback.format_exception_only(type(exc), exc)[-1].strip()))

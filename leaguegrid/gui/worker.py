@@ -17,7 +17,8 @@ from typing import Any
 
 from PySide6.QtCore import QObject, QThread, QTimer, Signal
 
-from leaguegrid.engine import Hooks
+from leaguegrid.engine import Cancelled, Hooks
+from leaguegrid.gui.procworker import RemoteCancelled
 
 Progress = Callable[[float, str], None]
 JobFn = Callable[[Hooks], Any]
@@ -29,10 +30,6 @@ def call(target: Callable[..., Any], *args: Any, **kwargs: Any) -> JobFn:
     return lambda hooks: target(*args, hooks=hooks, **kwargs)
 
 
-class JobCancelled(Exception):
-    """Raised by a job (or mapped from the engine's Cancelled) when its cancel event was set."""
-
-
 @dataclass
 class Job:
     """A named piece of work and what to do with its result in the GUI thread."""
@@ -40,7 +37,6 @@ class Job:
     name: str
     fn: JobFn
     on_done: Callable[[Any], None] | None = None
-    on_error: Callable[[str], None] | None = None
     budget: float | None = None  # seconds the work may take (None: no limit)
     cancel: threading.Event = field(default_factory=threading.Event)
     started: float = 0.0
@@ -75,9 +71,9 @@ class _Thread(QThread):
 
 
 def is_cancellation(exc: BaseException) -> bool:
-    """True for our JobCancelled and for the engine's Cancelled (matched by name: no import)."""
-    return isinstance(exc, JobCancelled) or type(exc).__name__ in ("Cancelled",
-                                                                   "RemoteCancelled")
+    """True when the job stopped because it was cancelled: in this process (the engine's
+    Cancelled) or in the engine process."""
+    return isinstance(exc, Cancelled | RemoteCancelled)
 
 
 class Runner(QObject):
@@ -85,7 +81,6 @@ class Runner(QObject):
 
     busyChanged = Signal(bool)
     progressed = Signal(float, str)  # fraction in [0, 1] (or -1 when unknown), stage text
-    finished = Signal(str, object)  # job name, result
     failed = Signal(str, str)  # job name, message
     cancelled = Signal(str)  # job name
 
@@ -186,14 +181,10 @@ class Runner(QObject):
         except Exception as exc:  # showing a result must not take the window down
             tail = traceback.format_exception_only(type(exc), exc)[-1].strip()
             self.failed.emit(job.name, f"showing the result failed: {tail}")
-        else:
-            self.finished.emit(job.name, result)
         self._next()
 
     def _on_error(self, message: str) -> None:
         job = self._finish()
-        if job.on_error is not None:
-            job.on_error(message)
         self.failed.emit(job.name, message)
         self._next()
 
