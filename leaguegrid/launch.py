@@ -39,7 +39,9 @@ def open_window(path: Path | None) -> int:
 def main(argv: Sequence[str] | None = None) -> int:
     """Entry point of the `leaguegrid` console script and of `python -m leaguegrid`."""
     from leaguegrid.cli.main import main as command_line
+    from leaguegrid.engine import keep_freed_memory
 
+    keep_freed_memory()
     args = list(sys.argv[1:] if argv is None else argv)
     if args[:1] == ["--engine-process"]:  # the frozen app starting its own engine process
         from leaguegrid.gui.procchild import main as engine_process

@@ -186,7 +186,7 @@ def _estimate_row(report: CountReport, row: CountRow, model: CountingModel, job:
     every-round-used / K!."""
     k = row.rounds
     share = None if estimate_seconds is None else estimate_seconds / n
-    hooks = engine.Hooks(cancel=job.cancel, budget=share, clock=job.clock)
+    hooks = engine.Hooks(cancel=job.cancel, budget=share, clock=job.clock, memo=job.memo)
     got = _exact(lambda: engine.estimate_counts(
         model.graph, k, pins=model.pins, exclusions=model.exclusions, hooks=hooks))
     if got is None:

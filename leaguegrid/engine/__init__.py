@@ -1,6 +1,7 @@
 """The counting engine: exact chromatic polynomials, counts of round assignments, the fewest
 rounds, uniform draws and labelled estimates. Pure: no Qt, no file I/O."""
 
+from .allocator import keep_freed_memory
 from .api import (
     RoundsProof,
     chromatic_polynomial,
@@ -20,6 +21,7 @@ from .cost import Cost, estimate_cost
 from .estimate import Estimate
 from .falling import from_falling, to_falling
 from .hooks import BudgetExceeded, Cancelled, Hooks, NoAssignment
+from .memo import Memo
 
 __all__ = [
     "BudgetExceeded",
@@ -27,6 +29,7 @@ __all__ = [
     "Cost",
     "Estimate",
     "Hooks",
+    "Memo",
     "NoAssignment",
     "RoundsProof",
     "chromatic_polynomial",
@@ -38,6 +41,7 @@ __all__ = [
     "estimate_counts",
     "from_falling",
     "groupings",
+    "keep_freed_memory",
     "min_rounds",
     "min_rounds_bounds",
     "min_rounds_proof",

@@ -7,7 +7,9 @@ freed, and the next step faults the same pages in again: on the 10-team round-ro
 at 9 rounds that was a third of the run (8.2 s, of which 2.9 s in the kernel). Raising the
 mmap threshold to its largest allowed value (32 MiB) and keeping 256 MiB of padding at the
 top of the heap lets the next step reuse them (5.7 s when measured, for 0.03 GiB more peak
-memory). On other C libraries (macOS, Windows, musl) nothing changes.
+memory). On other C libraries (macOS, Windows, musl) nothing changes. The engine never
+changes the process's allocator by itself: the program's entry points (the `leaguegrid`
+command, the window's engine process, the benchmark) call `keep_freed_memory` once.
 """
 
 from __future__ import annotations
@@ -19,7 +21,6 @@ import sys
 M_TOP_PAD = -2  # mallopt parameter numbers from glibc's malloc.h
 M_MMAP_THRESHOLD = -3
 PAGE = mmap.PAGESIZE
-_done = False
 
 
 def resident_bytes() -> int | None:
@@ -44,11 +45,10 @@ def release_freed_memory() -> None:
 
 
 def keep_freed_memory() -> None:
-    """Tune glibc's allocator once per process; a no-op elsewhere or when it fails."""
-    global _done
-    if _done or not sys.platform.startswith("linux"):
+    """Tune glibc's allocator for the process (the same two settings each time it is
+    called); a no-op elsewhere or when it fails."""
+    if not sys.platform.startswith("linux"):
         return
-    _done = True
     try:
         libc = ctypes.CDLL("libc.so.6")
         libc.mallopt(M_MMAP_THRESHOLD, 32 << 20)

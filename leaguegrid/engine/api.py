@@ -65,20 +65,20 @@ def _check_k(k: int) -> None:
         raise ValueError(f"round count {k!r} is not a whole number >= 0")
 
 
-def _count(g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Hooks) -> int:
+def _count(g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], hooks: Hooks) -> int:
     """Assignments of g to rounds 1..k honouring pins and exclusions."""
     if k == 0:
         return 1 if g.n == 0 else 0
     if not ip and not ie:
-        return solve.value(g, k, ticker)
+        return solve.value(g, k, hooks)
     t = transform(g, k, ip, ie)
     if t is None:
         return 0
-    return solve.value(t.graph, k, ticker) // falling(k, len(t.reps))
+    return solve.value(t.graph, k, hooks) // falling(k, len(t.reps))
 
 
 def _count_on_rounds(
-    g: Graph, rounds: list[int], ip: dict[int, int], ie: dict[int, set[int]], ticker: Hooks
+    g: Graph, rounds: list[int], ip: dict[int, int], ie: dict[int, set[int]], hooks: Hooks
 ) -> int:
     """Assignments using only the given rounds (renumbered 1..len(rounds))."""
     new = {r: i + 1 for i, r in enumerate(rounds)}
@@ -88,7 +88,7 @@ def _count_on_rounds(
             return 0
         pins[v] = new[r]
     excl = {v: {new[r] for r in rs if r in new} for v, rs in ie.items()}
-    return _count(g, len(rounds), pins, {v: rs for v, rs in excl.items() if rs}, ticker)
+    return _count(g, len(rounds), pins, {v: rs for v, rs in excl.items() if rs}, hooks)
 
 
 def _counted(
@@ -97,21 +97,21 @@ def _counted(
 ):
     """Check k, prepare the graph, run one count (exact or estimated) with progress 0 to 1."""
     _check_k(k)
-    ticker = begin(hooks)
-    ticker.report(0.0, "starting")
+    hooks = begin(hooks)
+    hooks.report(0.0, "starting")
     g, _, ip, ie = _prepare(G, pins, exclusions)
-    out = count(g, k, ip, ie, ticker)
-    ticker.report(1.0, "done")
+    out = count(g, k, ip, ie, hooks)
+    hooks.report(1.0, "done")
     return out
 
 
 def chromatic_polynomial(G: nx.Graph, hooks: Hooks | None = None) -> fmpz_poly:
     """P(G, x): the number of clash-free assignments to x rounds, as a polynomial."""
-    ticker = begin(hooks)
-    ticker.report(0.0, "starting")
+    hooks = begin(hooks)
+    hooks.report(0.0, "starting")
     g, _ = from_networkx(G)
-    p = solve.polynomial(g, ticker)
-    ticker.report(1.0, "done")
+    p = solve.polynomial(g, hooks)
+    hooks.report(1.0, "done")
     return p
 
 
@@ -139,7 +139,7 @@ def count_all_rounds_used(
 
 
 def _all_rounds_used(
-    g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Hooks
+    g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], hooks: Hooks
 ) -> int:
     """Assignments using every round 1..k, by inclusion-exclusion over the rounds left empty.
 
@@ -150,7 +150,7 @@ def _all_rounds_used(
     if k == 0:
         return 1 if g.n == 0 else 0
     if not ip and not ie:
-        vals = solve.values(g, list(range(k + 1)), ticker)
+        vals = solve.values(g, list(range(k + 1)), hooks)
         return sum((-1) ** i * math.comb(k, i) * vals[k - i] for i in range(k + 1))
     pinned = set(ip.values())
     groups: dict[frozenset[int], list[int]] = {}
@@ -162,12 +162,12 @@ def _all_rounds_used(
     combos = list(itertools.product(*(range(s + 1) for s in sizes)))
     total = 0
     for i, drop in enumerate(combos):
-        with ticker.window(i / len(combos), (i + 1) / len(combos)):
+        with hooks.window(i / len(combos), (i + 1) / len(combos)):
             removed = set()
             for rs, d in zip(groups.values(), drop, strict=True):
                 removed.update(rs[:d])
             rounds = [r for r in range(1, k + 1) if r not in removed]
-            c = _count_on_rounds(g, rounds, ip, ie, ticker)
+            c = _count_on_rounds(g, rounds, ip, ie, hooks)
         ways = math.prod(math.comb(s, d) for s, d in zip(sizes, drop, strict=True))
         total += (-1) ** sum(drop) * ways * c
     return total
@@ -187,22 +187,22 @@ def count_table(
     wanted = sorted(set(ks))
     for k in wanted:
         _check_k(k)
-    ticker = begin(hooks)
-    ticker.report(0.0, "starting")
+    hooks = begin(hooks)
+    hooks.report(0.0, "starting")
     g, _, ip, ie = _prepare(G, pins, exclusions)
     out: dict[int, tuple[int, int]] = {}
     if not wanted:
         return out
     if not ip and not ie:
-        vals = solve.values(g, list(range(max(wanted) + 1)), ticker)
+        vals = solve.values(g, list(range(max(wanted) + 1)), hooks)
         for k in wanted:
             used = sum((-1) ** i * math.comb(k, i) * vals[k - i] for i in range(k + 1))
             out[k] = (vals[k], used)
     else:
         for i, k in enumerate(wanted):
-            with ticker.window(i / len(wanted), (i + 1) / len(wanted)):
-                out[k] = (_count(g, k, ip, ie, ticker), _all_rounds_used(g, k, ip, ie, ticker))
-    ticker.report(1.0, "done")
+            with hooks.window(i / len(wanted), (i + 1) / len(wanted)):
+                out[k] = (_count(g, k, ip, ie, hooks), _all_rounds_used(g, k, ip, ie, hooks))
+    hooks.report(1.0, "done")
     return out
 
 
@@ -215,11 +215,11 @@ def groupings(G: nx.Graph, hooks: Hooks | None = None) -> list[int]:
     return (a + [0] * (n + 1))[: n + 1]
 
 
-def _lower_bound(g: Graph, ip: dict[int, int], ticker: Hooks) -> int:
+def _lower_bound(g: Graph, ip: dict[int, int], hooks: Hooks) -> int:
     """A proven lower bound: the largest clique, and the largest pinned round."""
     if g.n == 0:
         return 0
-    return max(len(max_clique(g, ticker)), max(ip.values(), default=0), 1)
+    return max(len(max_clique(g, hooks)), max(ip.values(), default=0), 1)
 
 
 def _special(k: int, ip: dict[int, int], ie: dict[int, set[int]]) -> int:
@@ -281,15 +281,15 @@ def min_rounds_proof(
     hooks: Hooks | None = None,
 ) -> RoundsProof:
     """The fewest rounds, a schedule using them, and why one fewer is impossible."""
-    ticker = begin(hooks)
-    ticker.report(0.0, "starting")
+    hooks = begin(hooks)
+    hooks.report(0.0, "starting")
     g, nodes, ip, ie = _prepare(G, pins, exclusions)
     why = _never_possible(g, ip, ie)
     if why:
         raise NoAssignment(why)
     if g.n == 0:
         return RoundsProof(0, {}, "clique", [])
-    clique = max_clique(g, ticker)
+    clique = max_clique(g, hooks)
     top_pin = max(ip.values(), default=0)
     k = max(len(clique), top_pin, 1)
     start = k
@@ -297,7 +297,7 @@ def min_rounds_proof(
     found = greedy_pass(g, doms) if doms else None
     while not found:
         doms = domains_for(g.n, k, ip, ie)
-        found = find_assignment(g, k, doms, ticker, _special(k, ip, ie)) if doms else None
+        found = find_assignment(g, k, doms, hooks, _special(k, ip, ie)) if doms else None
         if not found:
             k += 1
     if k > start:
@@ -306,7 +306,7 @@ def min_rounds_proof(
         lower = "clique"
     else:
         lower = "pin"
-    ticker.report(1.0, "done")
+    hooks.report(1.0, "done")
     schedule = {node: found[i] for i, node in enumerate(nodes)}
     return RoundsProof(k, schedule, lower, [nodes[i] for i in clique])
 
@@ -319,30 +319,30 @@ def min_rounds_bounds(
 ) -> tuple[int, int]:
     """Proven (low, high) for the fewest rounds: low from a clique, the largest pin and
     exhaustive searches that failed; high from a schedule found. Equal when exact."""
-    ticker = begin(hooks)
-    if ticker.deadline is None:
-        ticker = ticker.part(seconds=BOUNDS_SECONDS)
-    ticker.report(0.0, "starting")
+    hooks = begin(hooks)
+    if hooks.deadline is None:
+        hooks = hooks.part(seconds=BOUNDS_SECONDS)
+    hooks.report(0.0, "starting")
     g, _, ip, ie = _prepare(G, pins, exclusions)
     why = _never_possible(g, ip, ie)
     if why:
         raise NoAssignment(why)
     if g.n == 0:
         return 0, 0
-    low = _lower_bound(g, ip, ticker)
-    high, _ = greedy_assignment(g, lambda k: domains_for(g.n, k, ip, ie), ticker)
+    low = _lower_bound(g, ip, hooks)
+    high, _ = greedy_assignment(g, lambda k: domains_for(g.n, k, ip, ie), hooks)
     high = max(high, low)
     try:
         while low < high:
             doms = domains_for(g.n, low, ip, ie)
-            if doms is not None and find_assignment(g, low, doms, ticker, _special(low, ip, ie)):
+            if doms is not None and find_assignment(g, low, doms, hooks, _special(low, ip, ie)):
                 high = low
             else:
                 low += 1
     except BudgetExceeded:
         pass
-    ticker.deadline = None
-    ticker.report(1.0, "done")
+    hooks.deadline = None
+    hooks.report(1.0, "done")
     return low, high
 
 
@@ -370,25 +370,25 @@ def sample_assignments(
 ) -> list[dict[Hashable, int]]:
     """`count` independent uniform draws (the counting tables are built once for all)."""
     _check_k(k)
-    ticker = begin(hooks)
-    ticker.report(0.0, "starting")
+    hooks = begin(hooks)
+    hooks.report(0.0, "starting")
     g, nodes, ip, ie = _prepare(G, pins, exclusions)
     if g.n == 0:
         return [{} for _ in range(count)]
     t = transform(g, k, ip, ie) if k > 0 else None
     if t is None:
         raise NoAssignment(f"no valid assignment with {k} rounds")
-    with ticker.window(0.0, 0.9):
-        sampler = Sampler(t.graph, k, ticker)
+    with hooks.window(0.0, 0.9):
+        sampler = Sampler(t.graph, k, hooks)
     if not sampler.possible:
         raise NoAssignment(f"no valid assignment with {k} rounds")
     out = []
     for i in range(count):
         if i % 64 == 0:
-            ticker.report(0.9 + 0.1 * i / count, "drawing")
+            hooks.report(0.9 + 0.1 * i / count, "drawing")
         rounds = assignment_back(t, sampler.draw(rng), k)
         out.append({node: rounds[j] for j, node in enumerate(nodes)})
-    ticker.report(1.0, "done")
+    hooks.report(1.0, "done")
     return out
 
 
@@ -416,7 +416,7 @@ def estimate_counts(
 
 
 def _estimates(
-    g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], ticker: Hooks
+    g: Graph, k: int, ip: dict[int, int], ie: dict[int, set[int]], hooks: Hooks
 ) -> tuple[Estimate, Estimate]:
     """The two estimates of estimate_counts on the engine's graph."""
     doms = domains_for(g.n, k, ip, ie) if k > 0 else None
@@ -424,7 +424,7 @@ def _estimates(
         zero = 1 if g.n == 0 else 0
         none = Estimate(zero, zero, zero, "exact: no assignment is possible")
         return none, none
-    est, every = summarise(*estimate_draws(g, doms, k, ticker), doms)
+    est, every = summarise(*estimate_draws(g, doms, k, hooks), doms)
     if k > g.n:
         every = Estimate(0, 0, 0, "exact: more rounds than fixtures, so some round is empty")
     return est, every

@@ -11,13 +11,13 @@ from __future__ import annotations
 from collections.abc import Callable, Mapping, Set
 
 from .graph import Graph, bits
-from .hooks import BudgetExceeded, Ticker
+from .hooks import BudgetExceeded, Hooks
 
 CHECK_EVERY = 1024
 MAX_SEARCH = 900  # the search recurses once per fixture
 
 
-def max_clique(g: Graph, ticker: Ticker) -> list[int]:
+def max_clique(g: Graph, hooks: Hooks) -> list[int]:
     """A maximum clique (branch and bound with a greedy-colouring bound on bitmasks)."""
     adj = g.adj
     best: list[int] = []
@@ -44,7 +44,7 @@ def max_clique(g: Graph, ticker: Ticker) -> list[int]:
         nonlocal best
         counter[0] += 1
         if counter[0] % CHECK_EVERY == 0:
-            ticker.check()
+            hooks.check()
         for v, c in reversed(colour_bound(cand)):
             if len(clique) + c <= len(best):
                 return
@@ -87,7 +87,7 @@ def find_assignment(
     g: Graph,
     k: int,
     domains: list[int],
-    ticker: Ticker,
+    hooks: Hooks,
     special: int = 0,
     node_limit: int | None = None,
 ) -> list[int] | None:
@@ -129,7 +129,7 @@ def find_assignment(
             return True
         nodes[0] += 1
         if nodes[0] % CHECK_EVERY == 0:
-            ticker.check()
+            hooks.check()
         if node_limit is not None and nodes[0] > node_limit:
             raise StopIteration
         v = pick()
@@ -162,7 +162,7 @@ def find_assignment(
 
 
 def greedy_assignment(
-    g: Graph, domains_of: Callable[[int], list[int] | None], ticker: Ticker
+    g: Graph, domains_of: Callable[[int], list[int] | None], hooks: Hooks
 ) -> tuple[int, list[int]]:
     """A quick DSatur colouring respecting pins and exclusions: (rounds used, colouring).
 
@@ -178,7 +178,7 @@ def greedy_assignment(
         k += 1
         if k > 2 * n + 64:
             raise RuntimeError("no greedy assignment found")
-        ticker.check()
+        hooks.check()
 
 
 def greedy_pass(g: Graph, domains: list[int]) -> list[int] | None:

@@ -21,7 +21,7 @@ import networkx as nx
 from .frontier import State, step_masks, successors
 from .graph import Graph, from_networkx
 from .hooks import Hooks
-from .orders import best_order, frontier_sizes, partitions_bound
+from .orders import PartitionBounds, best_order, frontier_sizes
 from .reductions import plan
 
 PROBE_STATES = 30_000
@@ -36,9 +36,9 @@ class Cost:
     seconds: float
 
 
-def piece_cost(g: Graph, k: int | None, ticker: Hooks) -> tuple[int, float]:
+def piece_cost(g: Graph, k: int | None, hooks: Hooks) -> tuple[int, float]:
     """(largest layer, seconds) for one connected piece."""
-    order = best_order(g, k, ticker.check)
+    order = best_order(g, k, hooks.check)
     steps = step_masks(g, order)
     widths = frontier_sizes(g, order)
     kk = k if k is not None else g.n + 1
@@ -54,13 +54,14 @@ def piece_cost(g: Graph, k: int | None, ticker: Hooks) -> tuple[int, float]:
         work += len(layer)
         layer = nxt
         sizes.append(len(layer))
-        ticker.check()
+        hooks.check()
         if work > PROBE_STATES:
             break
     elapsed = time.perf_counter() - start
     rate = elapsed / max(work, 1)
     if len(sizes) < len(steps):
-        rest = _extrapolate(sizes, [partitions_bound(w, k) for w in widths])
+        bounds = PartitionBounds()
+        rest = _extrapolate(sizes, [bounds(w, k) for w in widths])
         sizes += rest
         work += sum(rest)
     factor = POLY_FACTOR if k is None else 1.0
@@ -95,12 +96,12 @@ def _extrapolate(sizes: list[int], bounds: list[int]) -> list[int]:
 def estimate_cost(G: nx.Graph, k: int | None = None) -> Cost:
     """Estimated cost of the exact polynomial (k None) or of the count at k rounds."""
     g, _ = from_networkx(G)
-    ticker = Hooks()
+    hooks = Hooks()
     parts = plan(g).pieces
     largest = 1
     seconds = 0.0
     for part in parts:
-        s, t = piece_cost(part, k, ticker)
+        s, t = piece_cost(part, k, hooks)
         largest = max(largest, s)
         seconds += t
     return Cost(states=largest, seconds=seconds)

@@ -24,7 +24,7 @@ import time
 from dataclasses import dataclass
 
 from .graph import Graph, bits
-from .hooks import Ticker
+from .hooks import Hooks
 
 
 def _one_draw(
@@ -73,7 +73,7 @@ def sis_draws(
     g: Graph,
     domains: list[int],
     rounds: int,
-    ticker: Ticker,
+    hooks: Hooks,
     rng: random.Random,
     draws: int,
 ) -> tuple[list[int], list[int]]:
@@ -84,18 +84,18 @@ def sis_draws(
     weights: list[int] = []
     full: list[int] = []
     every = (1 << rounds) - 1
-    left = ticker.remaining()
+    left = hooks.remaining()
     stop = None if left is None else time.monotonic() + left / 2
     by_degree = sorted(range(g.n), key=lambda v: -adj[v].bit_count())
     for d in range(draws):
         if d % 64 == 0:
-            ticker.report(d / draws, "estimating")
+            hooks.report(d / draws, "estimating")
             if d and stop is not None and time.monotonic() > stop:
                 break
         w, used = _one_draw(adj, domains, by_degree, rng)
         weights.append(w)
         full.append(w if used & every == every else 0)
-    ticker.report(1.0, "estimating")
+    hooks.report(1.0, "estimating")
     return weights, full
 
 

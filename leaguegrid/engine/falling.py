@@ -2,8 +2,6 @@
 
 from __future__ import annotations
 
-from functools import lru_cache
-
 from flint import fmpz_poly
 
 
@@ -23,7 +21,6 @@ def falling_poly(j: int) -> fmpz_poly:
     return p
 
 
-@lru_cache(maxsize=64)
 def stirling2_rows(n: int) -> tuple[tuple[int, ...], ...]:
     """Stirling numbers of the second kind S(i, j) for 0 <= j <= i <= n (recurrence)."""
     rows = [(1,)]

@@ -22,7 +22,7 @@ from flint import fmpz_poly
 
 from .allocator import release_freed_memory, resident_bytes
 from .graph import Graph
-from .hooks import BudgetExceeded, Ticker
+from .hooks import BudgetExceeded, Hooks
 from .orders import frontier_sizes
 
 State = tuple[int, ...]
@@ -308,12 +308,12 @@ def _resident_too_high(base: int | None) -> bool:
     return resident is not None and resident - base > RESIDENT_GROWTH
 
 
-def _guard(ticker: Ticker, limit: int, step: int, n: int, base: int | None) -> Check:
+def _guard(hooks: Hooks, limit: int, step: int, n: int, base: int | None) -> Check:
     """The check called while a table grows: cancel, budget, and the memory bound (the
     table's size, and where it can be read, the growth of the resident memory since `base`)."""
 
     def check(size: int) -> None:
-        ticker.check()
+        hooks.check()
         if size > limit or _resident_too_high(base):
             raise BudgetExceeded(
                 f"state table passed the memory bound ({size} states at step {step + 1} of {n})"
@@ -325,7 +325,7 @@ def _guard(ticker: Ticker, limit: int, step: int, n: int, base: int | None) -> C
 VECTOR_THRESHOLD = 20_000  # fixed-k tables at least this large move to numpy arrays
 
 
-def run(g: Graph, order: list[int], mode: str, param: object, one: object, ticker: Ticker):
+def run(g: Graph, order: list[int], mode: str, param: object, one: object, hooks: Hooks):
     """Run the programme over `order` with the step function of `mode`: the final weight,
     or None when every state died. Raises BudgetExceeded when a state table would pass
     the memory bound. Fixed-k tables that grow large continue on numpy arrays
@@ -338,27 +338,27 @@ def run(g: Graph, order: list[int], mode: str, param: object, one: object, ticke
     vector = mode != "packed"
     base = resident_baseline()
     for i, (vb, nb) in enumerate(steps):
-        ticker.report(i / max(n, 1), "counting")
+        hooks.report(i / max(n, 1), "counting")
         if vector and len(layer) >= VECTOR_THRESHOLD:
-            done = _vector_finish(g, order, i, layer, mode, param, ticker, base)
+            done = _vector_finish(g, order, i, layer, mode, param, hooks, base)
             if done is not _NOT_VECTOR:
-                ticker.report(1.0, "counting")
+                hooks.report(1.0, "counting")
                 return done
             vector = False
         limit = MEMORY_BYTES // _state_bytes(mode, param, i, widths[i])
-        check = _guard(ticker, limit, i, n, base)
+        check = _guard(hooks, limit, i, n, base)
         layer = advance(layer, vb, nb, param, check)
         check(len(layer))
         if not layer:
             return None
-    ticker.report(1.0, "counting")
+    hooks.report(1.0, "counting")
     return layer.get(())
 
 
 _NOT_VECTOR = object()
 
 
-def _vector_finish(g, order, start, layer, mode, param, ticker, base):
+def _vector_finish(g, order, start, layer, mode, param, hooks, base):
     """The rest of a fixed-k programme on arrays, or _NOT_VECTOR when it does not fit."""
     from . import vectorized
 
@@ -372,10 +372,10 @@ def _vector_finish(g, order, start, layer, mode, param, ticker, base):
 
     def check_for(step: int) -> Check:
         limit = int(MEMORY_BYTES * VECTOR_TABLE_SHARE) // vectorized.bytes_per_row(max(ks), lines)
-        return _guard(ticker, limit, step, n, base)
+        return _guard(hooks, limit, step, n, base)
 
     def progress(step: int) -> None:
-        ticker.report(step / max(n, 1), "counting")
+        hooks.report(step / max(n, 1), "counting")
 
     chunk = int(MEMORY_BYTES * VECTOR_CHUNK_SHARE)
     try:
@@ -387,7 +387,7 @@ def _vector_finish(g, order, start, layer, mode, param, ticker, base):
     return got[0] if mode == "at" else got
 
 
-def count_polynomial(g: Graph, order: list[int], ticker: Ticker) -> fmpz_poly:
+def count_polynomial(g: Graph, order: list[int], hooks: Hooks) -> fmpz_poly:
     """P(g, x) for a graph with no self-loop, by the frontier programme over `order`.
 
     Weights are polynomials packed into integers (Kronecker substitution x = 2^B): every
@@ -397,27 +397,27 @@ def count_polynomial(g: Graph, order: list[int], ticker: Ticker) -> fmpz_poly:
     polynomial objects.
     """
     shift = kronecker_bits(len(order), g.edges())
-    packed = run(g, order, "packed", shift, 1, ticker)
+    packed = run(g, order, "packed", shift, 1, hooks)
     return unpack(packed or 0, shift, len(order))
 
 
-def count_at(g: Graph, order: list[int], k: int, ticker: Ticker) -> int:
+def count_at(g: Graph, order: list[int], k: int, hooks: Hooks) -> int:
     """P(g, k) as an exact integer."""
     if k <= 0:
         return 1 if not order else 0
-    return run(g, order, "at", k, 1, ticker) or 0
+    return run(g, order, "at", k, 1, hooks) or 0
 
 
-def count_many(g: Graph, order: list[int], ks: list[int], ticker: Ticker) -> list[int]:
+def count_many(g: Graph, order: list[int], ks: list[int], hooks: Hooks) -> list[int]:
     """P(g, k) for every k in `ks` in one pass."""
     if max(ks, default=0) <= 0:
         return [1 if not order else 0 for _ in ks]
-    out = run(g, order, "many", tuple(ks), [1] * len(ks), ticker)
+    out = run(g, order, "many", tuple(ks), [1] * len(ks), hooks)
     return out if out is not None else [0] * len(ks)
 
 
 def completion_tables(
-    g: Graph, order: list[int], k: int, ticker: Ticker
+    g: Graph, order: list[int], k: int, hooks: Hooks
 ) -> list[dict[State, int]]:
     """For each step i, the states before placing order[i] mapped to their number of
     completions with k rounds (only states that have at least one); the last table is
@@ -429,12 +429,12 @@ def completion_tables(
     stored = 1
     limit = MEMORY_BYTES // 600  # every table is kept, with its completion counts
     for step, (vb, nb) in enumerate(steps):
-        ticker.report(0.5 * step / max(n, 1), "sampling tables")
+        hooks.report(0.5 * step / max(n, 1), "sampling tables")
         nxt: set[State] = set()
         for state in layers[-1]:
             tick += 1
             if tick % CHECK_EVERY == 0:
-                ticker.check()
+                hooks.check()
                 if stored + len(nxt) > limit:
                     raise BudgetExceeded(
                         f"sampling tables passed the memory bound at step {step + 1} of {n}"
@@ -447,14 +447,14 @@ def completion_tables(
     if () in layers[-1]:
         tables[-1][()] = 1
     for i in range(n - 1, -1, -1):
-        ticker.report(0.5 + 0.5 * (n - i) / max(n, 1), "sampling tables")
+        hooks.report(0.5 + 0.5 * (n - i) / max(n, 1), "sampling tables")
         vb, nb = steps[i]
         after = tables[i + 1]
         here: dict[State, int] = {}
         for state in layers[i]:
             tick += 1
             if tick % CHECK_EVERY == 0:
-                ticker.check()
+                hooks.check()
             total = 0
             for ns, mult in successors(state, vb, nb, k):
                 c = after.get(ns)

@@ -14,6 +14,8 @@ import time
 from collections.abc import Callable, Iterator
 from contextlib import contextmanager
 
+from .memo import Memo
+
 Progress = Callable[[float, str], None]
 Clock = Callable[[], float]
 
@@ -36,11 +38,15 @@ class Hooks:
     `progress(fraction, stage)` receives fractions that never go backwards; `cancel` is a
     `threading.Event` set from any thread; `budget` is seconds from now (None: no limit);
     `clock` is the time source (time.monotonic; a test may pass a fake clock, for instance
-    one that advances by one at every reading, which makes the budget a number of checks).
+    one that advances by one at every reading, which makes the budget a number of checks);
+    `memo` keeps the exact counts worked out under these hooks and their parts (a fresh one
+    unless the caller shares one between jobs, as the window's engine process does).
     """
 
     def __init__(self, progress: Progress | None = None, cancel: threading.Event | None = None,
-                 budget: float | None = None, clock: Clock | None = None) -> None:
+                 budget: float | None = None, clock: Clock | None = None,
+                 memo: Memo | None = None) -> None:
+        self.memo = Memo() if memo is None else memo
         self.progress = progress
         self.cancel = cancel
         self.budget = budget
@@ -99,7 +105,7 @@ class Hooks:
             left *= share
         if seconds is not None:
             left = seconds if left is None else min(left, seconds)
-        child = Hooks(self._forward(lo, hi, stage), self.cancel, left, self.clock)
+        child = Hooks(self._forward(lo, hi, stage), self.cancel, left, self.clock, self.memo)
         if self.allowed is not None and (seconds is None or left != seconds):
             child.allowed = self.allowed
         return child
@@ -126,4 +132,3 @@ def begin(hooks: Hooks | None) -> Hooks:
     return Hooks() if hooks is None else hooks.part()
 
 
-Ticker = Hooks  # the name engine modules use for the hooks of the call in progress

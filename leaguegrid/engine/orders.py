@@ -14,17 +14,27 @@ from __future__ import annotations
 
 import random
 from collections.abc import Callable
-from functools import lru_cache
 
 from .falling import stirling2_rows
 from .graph import Graph, bits
 
 
-@lru_cache(maxsize=4096)
-def partitions_bound(width: int, k: int | None) -> int:
-    """Partitions of `width` items into at most k classes (all partitions when k is None)."""
-    row = stirling2_rows(width)[width]
-    return sum(row if k is None else row[: k + 1])
+class PartitionBounds:
+    """Partitions of `width` items into at most k classes (all of them when k is None),
+    remembered by the one search or estimate that owns the table."""
+
+    def __init__(self) -> None:
+        self._rows: tuple[tuple[int, ...], ...] = ((1,),)
+        self._known: dict[tuple[int, int | None], int] = {}
+
+    def __call__(self, width: int, k: int | None) -> int:
+        got = self._known.get((width, k))
+        if got is None:
+            if width >= len(self._rows):
+                self._rows = stirling2_rows(max(width, 2 * len(self._rows)))
+            row = self._rows[width]
+            got = self._known[(width, k)] = sum(row if k is None else row[: k + 1])
+        return got
 
 
 def frontier_sizes(g: Graph, order: list[int]) -> list[int]:
@@ -64,9 +74,10 @@ def _decrement(nbrs: int, unplaced_deg: list[int], ones: int) -> int:
     return ones
 
 
-def score(widths: list[int], k: int | None) -> int:
+def score(widths: list[int], k: int | None, bounds: PartitionBounds | None = None) -> int:
     """The order's score: sum over steps of the partition bound of the frontier."""
-    return sum(partitions_bound(w, k) for w in widths)
+    bounds = bounds or PartitionBounds()
+    return sum(bounds(w, k) for w in widths)
 
 
 def greedy_order(
@@ -129,15 +140,16 @@ def best_order(
     on large graphs where each try costs more. `check` is called between tries (cancel).
     """
     rng = random.Random(seed)
+    bounds = PartitionBounds()
     best = greedy_order(g)
-    best_score = score(frontier_sizes(g, best), k)
+    best_score = score(frontier_sizes(g, best), k, bounds)
     tries = 1
     limit = min(max_tries, 1 + 8 * max(0, best_score.bit_length() - 10), 500_000 // g.n**2 + 8)
     while tries < limit:
         if check is not None:
             check()
         cand = greedy_order(g, rng)
-        s = score(frontier_sizes(g, cand), k)
+        s = score(frontier_sizes(g, cand), k, bounds)
         if s < best_score:
             best, best_score = cand, s
         tries += 1

@@ -40,17 +40,17 @@ def available() -> bool:
     return not mp.current_process().daemon
 
 
-def _compute(kind: str, g: Graph, order: list[int], param, ticker: Hooks):
+def _compute(kind: str, g: Graph, order: list[int], param, hooks: Hooks):
     from .frontier import count_at, count_many, count_polynomial
 
     if kind == "sis":
         domains, rounds, seed, draws = param
-        return sis_draws(g, domains, rounds, ticker, random.Random(seed), draws)
+        return sis_draws(g, domains, rounds, hooks, random.Random(seed), draws)
     if kind == "poly":
-        return count_polynomial(g, order, ticker)
+        return count_polynomial(g, order, hooks)
     if kind == "at":
-        return count_at(g, order, param, ticker)
-    return count_many(g, order, param, ticker)
+        return count_at(g, order, param, hooks)
+    return count_many(g, order, param, hooks)
 
 
 def _work(conn: Connection, kind: str, adj: list[int], order: list[int], param, left) -> None:
@@ -84,10 +84,10 @@ class Background:
         self.proc.start()
         child.close()
 
-    def result(self, ticker: Hooks):
+    def result(self, hooks: Hooks):
         """Wait for the child's answer, checking cancel and budget meanwhile."""
         while not self.conn.poll(0.05):
-            ticker.check()
+            hooks.check()
             if not self.proc.is_alive() and not self.conn.poll(0):
                 raise RuntimeError("the engine's second process stopped without an answer")
         status, payload = self.conn.recv()
@@ -111,7 +111,7 @@ def solve_pieces(
     orders: list[list[int]],
     scores: list[int],
     param: object,
-    ticker: Hooks,
+    hooks: Hooks,
     shares: list[float],
     stop_early: Callable[[object], bool] = lambda _: False,
 ) -> list:
@@ -124,20 +124,20 @@ def solve_pieces(
     outside = -1
     if len(heavy) >= 2 and available():
         outside = max(heavy, key=lambda i: scores[i])
-        back = Background(kind, parts[outside], orders[outside], param, ticker.remaining())
+        back = Background(kind, parts[outside], orders[outside], param, hooks.remaining())
     results: list = [None] * len(parts)
     try:
         pos = 0.0
         for i, part in enumerate(parts):
             if i == outside:
                 continue
-            with ticker.window(pos, pos + shares[i]):
-                results[i] = _compute(kind, part, orders[i], param, ticker)
+            with hooks.window(pos, pos + shares[i]):
+                results[i] = _compute(kind, part, orders[i], param, hooks)
             pos += shares[i]
             if stop_early(results[i]):
                 return results
         if back is not None:
-            results[outside] = back.result(ticker)
+            results[outside] = back.result(hooks)
     finally:
         if back is not None:
             back.close()
@@ -145,17 +145,17 @@ def solve_pieces(
 
 
 def estimate_draws(
-    g: Graph, domains: list[int], rounds: int, ticker: Hooks, draws: int = SIS_DRAWS
+    g: Graph, domains: list[int], rounds: int, hooks: Hooks, draws: int = SIS_DRAWS
 ) -> tuple[list[int], list[int]]:
     """The draws of an estimate (estimate.sis_draws, seed 0); on graphs of SIS_PARALLEL_FROM
     fixtures or more, half of them in a second process with seed 1."""
     if g.n < SIS_PARALLEL_FROM or not available():
-        return sis_draws(g, domains, rounds, ticker, random.Random(0), draws)
+        return sis_draws(g, domains, rounds, hooks, random.Random(0), draws)
     half = draws // 2
-    back = Background("sis", g, [], (domains, rounds, 1, half), ticker.remaining())
+    back = Background("sis", g, [], (domains, rounds, 1, half), hooks.remaining())
     try:
-        weights, full = sis_draws(g, domains, rounds, ticker, random.Random(0), draws - half)
-        more, more_full = back.result(ticker)
+        weights, full = sis_draws(g, domains, rounds, hooks, random.Random(0), draws - half)
+        more, more_full = back.result(hooks)
     finally:
         back.close()
     return weights + more, full + more_full

@@ -13,7 +13,7 @@ import random
 
 from .frontier import State, completion_tables
 from .graph import Graph, bits, components
-from .hooks import Ticker
+from .hooks import Hooks
 from .orders import greedy_order
 from .reductions import peel_simplicial
 
@@ -21,11 +21,11 @@ from .reductions import peel_simplicial
 class PieceSampler:
     """Uniform colourings of one connected piece with rounds 1..k."""
 
-    def __init__(self, g: Graph, k: int, ticker: Ticker) -> None:
+    def __init__(self, g: Graph, k: int, hooks: Hooks) -> None:
         self.g = g
         self.k = k
         self.order = greedy_order(g)
-        self.tables: list[dict[State, int]] = completion_tables(g, self.order, k, ticker)
+        self.tables: list[dict[State, int]] = completion_tables(g, self.order, k, hooks)
         self.total = self.tables[0].get((), 0)
 
     def draw(self, rng: random.Random) -> list[int]:
@@ -77,7 +77,7 @@ class Sampler:
     draw stays exactly uniform.
     """
 
-    def __init__(self, g: Graph, k: int, ticker: Ticker) -> None:
+    def __init__(self, g: Graph, k: int, hooks: Hooks) -> None:
         self.g = g
         self.k = k
         self.peeled, alive = peel_simplicial(g)
@@ -90,8 +90,8 @@ class Sampler:
         if not self.possible:
             return
         for i, comp in enumerate(self.comps):
-            with ticker.window(i / len(self.comps), (i + 1) / len(self.comps)):
-                piece = PieceSampler(core.induced(comp), k, ticker)
+            with hooks.window(i / len(self.comps), (i + 1) / len(self.comps)):
+                piece = PieceSampler(core.induced(comp), k, hooks)
             if piece.total == 0:
                 self.possible = False
                 return

@@ -19,8 +19,8 @@ from __future__ import annotations
 from collections.abc import Callable
 
 import numpy as np
+from flint import fmpz
 
-from .allocator import keep_freed_memory
 from .graph import Graph, bits
 
 CHUNK_BYTES = 80 * 2**20  # successor rows built at a time, in bytes (bounds one step's memory)
@@ -33,37 +33,13 @@ _S29 = np.uint64(29)
 _S32 = np.uint64(32)
 
 
-def _is_prime(n: int) -> bool:
-    """Deterministic Miller-Rabin for n < 3.4e14 (bases 2, 3, 5, 7, 11, 13, 17)."""
-    if n < 2:
-        return False
-    for p in (2, 3, 5, 7, 11, 13, 17):
-        if n % p == 0:
-            return n == p
-    d, s = n - 1, 0
-    while d % 2 == 0:
-        d //= 2
-        s += 1
-    for a in (2, 3, 5, 7, 11, 13, 17):
-        x = pow(a, d, n)
-        if x in (1, n - 1):
-            continue
-        for _ in range(s - 1):
-            x = x * x % n
-            if x == n - 1:
-                break
-        else:
-            return False
-    return True
-
-
 def primes_for(bound: int) -> list[int]:
     """Primes below 2^31 whose product exceeds `bound`."""
     out: list[int] = []
     product = 1
     p = 2**31 - 1
     while product <= bound:
-        if _is_prime(p):
+        if fmpz(p).is_prime():  # python-flint's test: 0.12 ms for 33 primes, 2.1 ms by hand
             out.append(p)
             product *= p
         p -= 2
@@ -89,7 +65,8 @@ def count_bound(g: Graph, order: list[int], k: int) -> int:
 
 
 def crt(residues: list[int], primes: list[int]) -> int:
-    """The integer in [0, prod primes) with the given residues."""
+    """The integer in [0, prod primes) with the given residues (Garner's form of the Chinese
+    remainder theorem; python-flint 0.9 has none for integers; 0.07 ms for 33 primes)."""
     x, m = 0, 1
     for r, p in zip(residues, primes, strict=True):
         t = ((r - x) * pow(m, -1, p)) % p
@@ -417,7 +394,6 @@ def finish(
 ) -> list[int] | None:
     """Continue a frontier.py programme (integer weights for each k in ks) from step
     `start` with arrays; the counts for each k, or None when no state survives."""
-    keep_freed_memory()
     kmax = max(ks)
     primes = primes_for(max(count_bound(g, order, kmax), 1))
     steps, slot = slot_steps(g, order, start)

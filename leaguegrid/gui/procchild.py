@@ -14,7 +14,7 @@ import threading
 import time
 import traceback
 
-from leaguegrid.engine import Cancelled, Hooks
+from leaguegrid.engine import Cancelled, Hooks, Memo, keep_freed_memory
 from leaguegrid.gui.procworker import receive, send
 
 PROGRESS_EVERY = 0.05  # seconds between progress messages
@@ -34,7 +34,7 @@ def _reader(in_fd: int, jobs: queue.Queue, cancel: threading.Event, cancelled: s
             jobs.put(message)
 
 
-def _run(message: tuple, out_fd: int, cancel: threading.Event) -> None:
+def _run(message: tuple, out_fd: int, cancel: threading.Event, memo: Memo) -> None:
     _kind, _job, target, args, kwargs, budget = message
     last = [0.0]
 
@@ -45,7 +45,7 @@ def _run(message: tuple, out_fd: int, cancel: threading.Event) -> None:
             send(out_fd, ("progress", fraction, stage))
 
     try:
-        result = target(*args, hooks=Hooks(progress, cancel, budget), **kwargs)
+        result = target(*args, hooks=Hooks(progress, cancel, budget, memo=memo), **kwargs)
     except Exception as exc:  # reported to the window as text
         if cancel.is_set() or isinstance(exc, Cancelled):
             send(out_fd, ("cancelled",))
@@ -63,6 +63,8 @@ def _run(message: tuple, out_fd: int, cancel: threading.Event) -> None:
 
 def main(argv: list[str]) -> int:
     in_fd, out_fd = int(argv[0]), int(argv[1])
+    keep_freed_memory()
+    memo = Memo()  # counts shared by this process's jobs (a recount after an edit reuses them)
     jobs: queue.Queue = queue.Queue()
     cancel = threading.Event()
     cancelled: set[int] = set()
@@ -75,7 +77,7 @@ def main(argv: list[str]) -> int:
         if message[1] in cancelled:  # cancelled before it started
             cancel.set()
         try:
-            _run(message, out_fd, cancel)
+            _run(message, out_fd, cancel, memo)
         except OSError:  # the parent went away
             return 0
 

@@ -1,4 +1,5 @@
-"""The allocator tuning asks glibc for the two settings once, and nothing elsewhere."""
+"""The allocator tuning asks glibc for its two settings, and nothing elsewhere; the engine
+leaves the process's allocator alone unless an entry point asks."""
 
 from __future__ import annotations
 
@@ -21,17 +22,27 @@ class FakeLibc:
 @pytest.fixture
 def fake(monkeypatch):
     libc = FakeLibc()
-    monkeypatch.setattr(allocator, "_done", False)
     monkeypatch.setattr(allocator.ctypes, "CDLL", lambda name: libc)
     return libc
 
 
-def test_glibc_gets_threshold_and_top_pad_once(fake, monkeypatch):
+def test_glibc_gets_threshold_and_top_pad(fake, monkeypatch):
     monkeypatch.setattr(sys, "platform", "linux")
-    allocator.keep_freed_memory()
     allocator.keep_freed_memory()
     # glibc malloc.h: M_MMAP_THRESHOLD = -3 (32 MiB is its largest value), M_TOP_PAD = -2
     assert fake.calls == [(-3, 32 * 2**20), (-2, 256 * 2**20)]
+
+
+def test_an_exact_count_leaves_the_allocator_alone(fake, monkeypatch):
+    import networkx as nx
+
+    from leaguegrid.engine import count_assignments, frontier
+
+    monkeypatch.setattr(sys, "platform", "linux")
+    monkeypatch.setattr(frontier, "VECTOR_THRESHOLD", 1)  # the array programme runs
+    rook = nx.cartesian_product(nx.complete_graph(4), nx.complete_graph(4))
+    assert count_assignments(rook, 4) == 576  # OEIS A002860: 576 Latin squares of order 4
+    assert fake.calls == []
 
 
 def test_other_platforms_are_left_alone(fake, monkeypatch):
@@ -44,11 +55,9 @@ def test_missing_c_library_is_not_an_error(monkeypatch):
     def missing(name: str):
         raise OSError(f"{name}: cannot open shared object file")
 
-    monkeypatch.setattr(allocator, "_done", False)
     monkeypatch.setattr(sys, "platform", "linux")
     monkeypatch.setattr(allocator.ctypes, "CDLL", missing)
-    allocator.keep_freed_memory()
-    assert allocator._done
+    allocator.keep_freed_memory()  # nothing raised
 
 
 @pytest.mark.skipif(not sys.platform.startswith("linux"), reason="reads /proc/self/statm")
@@ -58,14 +67,11 @@ def test_resident_bytes_reads_this_process():
 
 @pytest.mark.skipif(not sys.platform.startswith("linux"), reason="reads /proc/self/statm")
 def test_resident_memory_bound_stops_exact_work(monkeypatch):
-    from collections import OrderedDict
-
     import networkx as nx
 
-    from leaguegrid.engine import BudgetExceeded, count_assignments, frontier, solve
+    from leaguegrid.engine import BudgetExceeded, count_assignments, frontier
 
     monkeypatch.setattr(frontier, "RESIDENT_GROWTH", -(2**40))  # any reading is too much
-    monkeypatch.setattr(solve, "_CACHE", OrderedDict())  # no count remembered from elsewhere
     rook = nx.cartesian_product(nx.complete_graph(4), nx.complete_graph(4))
     with pytest.raises(BudgetExceeded, match="memory bound"):
         count_assignments(rook, 4)

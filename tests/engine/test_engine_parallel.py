@@ -3,12 +3,13 @@
 from __future__ import annotations
 
 import random
+import threading
 
 import networkx as nx
 import pytest
 
-from benchmarks.bench import cancel_latency
 from leaguegrid.engine import (
+    Cancelled,
     chromatic_polynomial,
     count_assignments,
     count_table,
@@ -16,7 +17,7 @@ from leaguegrid.engine import (
 )
 from leaguegrid.engine.estimate import sis_draws
 from leaguegrid.engine.graph import from_networkx
-from leaguegrid.engine.hooks import Ticker
+from leaguegrid.engine.hooks import Hooks
 
 
 def two_pieces() -> nx.Graph:
@@ -46,16 +47,47 @@ def test_second_process_gives_the_same_results(monkeypatch) -> None:
     assert started == ["poly", "at", "many"]
 
 
-def test_cancel_stops_the_second_process(monkeypatch) -> None:
+def _spied_background(monkeypatch, on_wait=None) -> list:
+    """Record each second process started; `on_wait()` runs when the parent starts waiting."""
     monkeypatch.setattr(parallel, "PARALLEL_SCORE", 0)
     monkeypatch.delenv(parallel.ENV, raising=False)
-    # Two copies of the 5x5 rook's graph: each polynomial takes about 1.5 s in 110 MiB, so
-    # both are still running, well inside the memory bound, when the cancel comes.
+    started: list = []
+
+    class Spy(parallel.Background):
+        def __init__(self, *args) -> None:
+            super().__init__(*args)
+            started.append(self)
+
+        def result(self, hooks):
+            if on_wait is not None:
+                on_wait()
+            return super().result(hooks)
+
+    monkeypatch.setattr(parallel, "Background", Spy)
+    return started
+
+
+def test_cancel_while_this_process_counts_stops_the_second_one(monkeypatch) -> None:
+    # Two copies of the 5x5 rook's graph: one goes to a second process; the cancel comes with
+    # the first progress report after it started, while the other is still running.
+    started = _spied_background(monkeypatch)
+    cancel = threading.Event()
     rook = nx.cartesian_product(nx.complete_graph(5), nx.complete_graph(5))
     G = nx.disjoint_union(rook, rook)
-    seconds, outcome = cancel_latency(G, 0.5, wait=5.0)
-    assert outcome == "cancelled"
-    assert seconds < 5.0
+    with pytest.raises(Cancelled):
+        chromatic_polynomial(G, Hooks(lambda f, s: started and cancel.set(), cancel))
+    assert len(started) == 1
+    assert started[0].proc.exitcode is not None  # killed and joined, not left running
+
+
+def test_cancel_while_waiting_for_the_second_process_stops_it(monkeypatch) -> None:
+    cancel = threading.Event()
+    started = _spied_background(monkeypatch, on_wait=cancel.set)
+    rook = nx.cartesian_product(nx.complete_graph(5), nx.complete_graph(5))
+    G = nx.disjoint_union(rook, nx.petersen_graph())  # the rook's graph goes outside
+    with pytest.raises(Cancelled):
+        chromatic_polynomial(G, Hooks(cancel=cancel))
+    assert started[0].proc.exitcode is not None
 
 
 @pytest.mark.parametrize("value", ["1"])
@@ -71,9 +103,9 @@ def test_estimate_draws_are_shared_with_a_second_process(monkeypatch) -> None:
     monkeypatch.setattr(parallel, "SIS_PARALLEL_FROM", 5)
     g, _ = from_networkx(nx.petersen_graph())
     domains = [0b111] * g.n
-    here = sis_draws(g, domains, 3, Ticker(), random.Random(0), 30)
-    there = sis_draws(g, domains, 3, Ticker(), random.Random(1), 30)
-    pooled = parallel.estimate_draws(g, domains, 3, Ticker(), draws=60)
+    here = sis_draws(g, domains, 3, Hooks(), random.Random(0), 30)
+    there = sis_draws(g, domains, 3, Hooks(), random.Random(1), 30)
+    pooled = parallel.estimate_draws(g, domains, 3, Hooks(), draws=60)
     assert pooled == (here[0] + there[0], here[1] + there[1])
 
 
@@ -82,5 +114,5 @@ def test_estimate_draws_stay_in_one_process_when_asked(monkeypatch) -> None:
     monkeypatch.setattr(parallel, "SIS_PARALLEL_FROM", 5)
     g, _ = from_networkx(nx.petersen_graph())
     domains = [0b111] * g.n
-    alone = parallel.estimate_draws(g, domains, 3, Ticker(), draws=60)
-    assert alone == sis_draws(g, domains, 3, Ticker(), random.Random(0), 60)
+    alone = parallel.estimate_draws(g, domains, 3, Hooks(), draws=60)
+    assert alone == sis_draws(g, domains, 3, Hooks(), random.Random(0), 60)

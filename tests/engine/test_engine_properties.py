@@ -21,7 +21,7 @@ from leaguegrid.engine import (
 from leaguegrid.engine.falling import from_falling
 from leaguegrid.engine.frontier import count_at, count_many, count_polynomial
 from leaguegrid.engine.graph import from_networkx
-from leaguegrid.engine.hooks import Ticker
+from leaguegrid.engine.hooks import Hooks
 
 SETTINGS = settings(max_examples=40, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 
@@ -78,13 +78,13 @@ def test_every_vertex_order_agrees(G: nx.Graph, rnd: random.Random) -> None:
     g, _ = from_networkx(G)
     order = list(range(g.n))
     rnd.shuffle(order)
-    ticker = Ticker()
-    p = count_polynomial(g, order, ticker)
+    hooks = Hooks()
+    p = count_polynomial(g, order, hooks)
     assert p == chromatic_polynomial(G)
     for k in range(0, 5):
-        assert count_at(g, order, k, ticker) == p(k)
+        assert count_at(g, order, k, hooks) == p(k)
     ks = list(range(0, g.n + 2))
-    assert count_many(g, order, ks, ticker) == [p(k) for k in ks]
+    assert count_many(g, order, ks, hooks) == [p(k) for k in ks]
 
 
 @settings(max_examples=15, deadline=None)
@@ -110,11 +110,11 @@ def test_reductions_agree_with_plain_programme(G: nx.Graph) -> None:
     from leaguegrid.engine import solve
 
     g, _ = from_networkx(G)
-    ticker = Ticker()
-    p = solve.polynomial(g, ticker, reduce=True)
-    assert p == solve.polynomial(g, ticker, reduce=False)
+    hooks = Hooks()
+    p = solve.polynomial(g, hooks, reduce=True)
+    assert p == solve.polynomial(g, hooks, reduce=False)
     for k in range(0, 5):
-        assert solve.value(g, k, ticker, reduce=True) == p(k)
+        assert solve.value(g, k, hooks, reduce=True) == p(k)
 
 
 @SETTINGS
@@ -165,16 +165,16 @@ def _array_path_agrees(G: nx.Graph, k: int, chunk_rows: int | None) -> None:
 
     g, _ = from_networkx(G)
     order = greedy_order(g)
-    ticker = Ticker()
+    hooks = Hooks()
     ks = list(range(0, 7))
-    plain = [count_at(g, order, j, ticker) for j in ks]
+    plain = [count_at(g, order, j, hooks) for j in ks]
     saved = frontier.VECTOR_THRESHOLD, frontier.VECTOR_CHUNK_SHARE, vectorized.MIN_CHUNK_ROWS
     frontier.VECTOR_THRESHOLD = 1
     if chunk_rows is not None:
         frontier.VECTOR_CHUNK_SHARE, vectorized.MIN_CHUNK_ROWS = 0, chunk_rows
     try:
-        assert count_at(g, order, k, ticker) == plain[k]
-        assert count_many(g, order, ks, ticker) == plain
+        assert count_at(g, order, k, hooks) == plain[k]
+        assert count_many(g, order, ks, hooks) == plain
     finally:
         frontier.VECTOR_THRESHOLD, frontier.VECTOR_CHUNK_SHARE, vectorized.MIN_CHUNK_ROWS = saved
 
@@ -218,7 +218,7 @@ def test_hash_collisions_are_caught(monkeypatch) -> None:
     G = nx.petersen_graph()
     g, _ = from_networkx(G)
     p = chromatic_polynomial(G)  # the packed-polynomial path does not use arrays
-    assert count_many(g, list(range(10)), [3, 4], Ticker()) == [p(3), p(4)]
+    assert count_many(g, list(range(10)), [3, 4], Hooks()) == [p(3), p(4)]
     assert p(3) == 120
     assert calls  # the collisions were seen and the exact sort used
 
