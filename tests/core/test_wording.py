@@ -34,3 +34,14 @@ def test_changes_read_as_times_as_many() -> None:
     assert wording.times_text(250, 1000) == "4 times fewer"
     assert wording.times_text(7, 7) == "the same number"
     assert wording.times_text(0, 7) == "none left"
+
+
+def test_a_round_reads_its_date_and_time_as_one() -> None:
+    import datetime as dt
+
+    from leaguegrid.core.wording import when_text
+
+    assert when_text(dt.date(2025, 9, 6), dt.time(10, 30)) == "2025-09-06 10:30"  # ISO 8601
+    assert when_text(dt.date(2025, 9, 6), None) == "2025-09-06"
+    assert when_text(None, dt.time(9, 5)) == "09:05"
+    assert when_text(None, None) == ""

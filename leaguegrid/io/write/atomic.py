@@ -58,12 +58,15 @@ def atomic_write(
     *,
     encoding: str | None = "utf-8",
     newline: str | None = None,
+    replace: bool = True,
 ) -> Iterator[IO[Any]]:
     """Yield a file object for a temporary file beside `path`; on success it replaces `path`.
 
     `mode` is "w" (text, `encoding` and `newline` apply) or "wb" (bytes). The data is flushed
     and fsync'ed before `os.replace`. If the block raises, the temporary file is removed, the
-    target is left as it was, and the exception propagates.
+    target is left as it was, and the exception propagates. With `replace=False` an existing
+    `path` is never touched: the finished file is linked into place, which fails with
+    FileExistsError when the name is taken, even by a file that appeared meanwhile.
     """
     if mode not in ("w", "wb"):
         raise ValueError(f"atomic_write mode must be 'w' or 'wb', not {mode!r}")
@@ -89,11 +92,28 @@ def atomic_write(
             os.chmod(tmp, os.stat(target).st_mode & 0o7777)
         except FileNotFoundError:
             os.chmod(tmp, _NEW_FILE_MODE)
-        os.replace(tmp, target)
+        if replace:
+            os.replace(tmp, target)
+        else:
+            _link_new(tmp, target)
     except BaseException:
         tmp.unlink(missing_ok=True)
         raise
     _fsync_folder(folder)
+
+
+def _link_new(tmp: Path, target: Path) -> None:
+    """Give the finished temporary file the name `target` only if no file has that name."""
+    try:
+        os.link(tmp, target)  # atomic, and refuses an existing name
+    except FileExistsError:
+        raise
+    except OSError:  # a file system without hard links: check, then rename
+        if target.exists():
+            raise FileExistsError(str(target)) from None
+        os.replace(tmp, target)
+        return
+    tmp.unlink()
 
 
 def same_file(a: StrPath, b: StrPath) -> bool:

@@ -130,8 +130,8 @@ def blank_league_workbook() -> Workbook:
 def write_blank_league(path: str | Path) -> Path:
     """Write the blank league to a new file (FileExistsError when it exists: never overwrite)."""
     target = Path(path)
-    if target.exists():
+    if target.exists():  # said before any work; atomic_write checks again as it finishes
         raise FileExistsError(str(target))
-    with atomic_write(target, "wb") as handle:
+    with atomic_write(target, "wb", replace=False) as handle:
         blank_league_workbook().save(handle)
     return target

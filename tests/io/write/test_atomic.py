@@ -49,6 +49,23 @@ def test_failure_leaves_the_old_file_untouched(tmp_path):
     assert [p.name for p in tmp_path.iterdir()] == ["calendar.csv"]
 
 
+def test_a_new_file_never_replaces_one_that_appeared_meanwhile(tmp_path):
+    target = tmp_path / "league.xlsx"
+    with pytest.raises(FileExistsError), atomic_write(target, "wb", replace=False) as fh:
+        fh.write(b"blank league")
+        target.write_bytes(b"the coordinator's own file")  # made while we were writing
+    assert target.read_bytes() == b"the coordinator's own file"
+    assert [p.name for p in tmp_path.iterdir()] == ["league.xlsx"]
+
+
+def test_a_new_file_lands_when_the_name_is_free(tmp_path):
+    target = tmp_path / "league.xlsx"
+    with atomic_write(target, "wb", replace=False) as fh:
+        fh.write(b"blank league")
+    assert target.read_bytes() == b"blank league"
+    assert [p.name for p in tmp_path.iterdir()] == ["league.xlsx"]
+
+
 def test_temporary_file_is_in_the_target_folder(tmp_path):
     target = tmp_path / "a.txt"
     with atomic_write(target) as fh:
