@@ -11,9 +11,11 @@ from leaguegrid.app.defaults import SCORE_TERMS
 from leaguegrid.core import wording
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.scheduling import score
+from leaguegrid.scheduling.breaks import BreakCount, count_breaks
 from leaguegrid.scheduling.check import check_schedule
 from leaguegrid.scheduling.dates import DatesError, round_dates
 from leaguegrid.scheduling.draw import PlanResult, fresh_seed, plan
+from leaguegrid.scheduling.optimise import breaks_bound, fewer_breaks
 from leaguegrid.scheduling.rules import Violation, generator_rules
 
 
@@ -26,6 +28,21 @@ class PlanOutcome:
     seed: int
     seed_given: bool  # False: drawn here; the same seed gives the same schedule again
     result: PlanResult
+    breaks: BreakCount | None = None  # of the schedule, when there is one
+    breaks_bound: int | None = None  # a proven lower bound on the breaks, when one is known
+
+    @property
+    def optimal(self) -> bool:
+        """True when the schedule's breaks reach the proven lower bound."""
+        return (self.breaks is not None and self.breaks_bound is not None
+                and self.breaks.total <= self.breaks_bound)
+
+    @property
+    def breaks_line(self) -> str | None:
+        """'Breaks: 8 (lower bound 8: optimal)', when there is a schedule."""
+        if self.breaks is None:
+            return None
+        return wording.breaks_text(self.breaks.total, self.breaks_bound)
 
     @property
     def schedule(self) -> Schedule | None:
@@ -53,21 +70,39 @@ def parse_terms(text: str | None) -> dict[str, float] | None:
 
 def make_schedule(league: League, graph: nx.Graph, rounds: int, seed: int | None = None,
                   draws: int = 1, terms: dict[str, float] | None = None,
-                  hooks: engine.Hooks | None = None) -> PlanOutcome:
-    """A schedule for K rounds: a uniform draw, or the best of `draws` by `terms` (every score
-    term, equally weighted, when more than one draw is asked for without terms). `seed` None
-    draws a fresh one, recorded in the outcome. ValueError when draws < 1."""
+                  hooks: engine.Hooks | None = None, uniform: bool = False) -> PlanOutcome:
+    """A schedule for K rounds: optimised for the fewest breaks (the default), a uniform draw
+    (`uniform`), or the best of `draws` by `terms` (every score term, equally weighted, when
+    more than one draw is asked for without terms). `seed` None draws a fresh one, recorded in
+    the outcome. ValueError when draws < 1."""
     if draws < 1:
         raise ValueError(f"the number of schedules to draw must be at least 1, not {draws}")
     given = seed is not None
     seed = seed if seed is not None else fresh_seed()
     if draws > 1 and not terms:
         terms = dict.fromkeys(SCORE_TERMS, 1.0)
-    result = plan(league, graph, rounds, seed, draws=draws, terms=terms, hooks=hooks)
-    if result.schedule is not None and result.score is not None:
-        result.schedule.notes = [*result.schedule.notes,
-                                 *("score " + line for line in result.score.lines())]
-    return PlanOutcome(rounds, seed, given, result)
+    job = hooks or engine.Hooks()
+    result = plan(league, graph, rounds, seed, draws=draws, terms=terms,
+                  hooks=job.part(0.0, 0.7, share=0.7))
+    schedule = result.schedule
+    if schedule is not None and result.score is not None:
+        schedule.notes = [*schedule.notes, *("score " + line for line in result.score.lines())]
+    outcome = PlanOutcome(rounds, seed, given, result, breaks_bound=breaks_bound(league, rounds))
+    if schedule is None or result.model is None:
+        return outcome
+    if uniform or draws > 1:
+        outcome.breaks = count_breaks(league, schedule.assignment)
+        return outcome
+    better = fewer_breaks(result.model, schedule.assignment, seed, job.part(0.7, 1.0))
+    start = ("the round robin timetable LeagueGrid generated" if better.start == "timetable"
+             else f"a schedule {wording.METHODS.get(schedule.method, schedule.method)}")
+    schedule.assignment = better.assignment
+    schedule.method = "optimised"
+    kept = [n for n in schedule.notes if not n.startswith("drawn uniformly")]
+    schedule.notes = [*kept, f"optimised for the fewest breaks from {start}"
+                      + (", stopped early at the budget" if better.stopped else "")]
+    outcome.breaks = better.breaks
+    return outcome
 
 
 def fewest_rounds(result: PlanResult, hooks: engine.Hooks | None = None) -> int | None:
@@ -105,10 +140,6 @@ def round_titles(league: League, rounds: int) -> list[str]:
     titles = []
     for r in range(1, rounds + 1):
         info = infos[r - 1] if r - 1 < len(infos) else None
-        extra = []
-        if info is not None and info.date is not None:
-            extra.append(info.date.isoformat())
-        if info is not None and info.time is not None:
-            extra.append(info.time.strftime("%H:%M"))
-        titles.append(f"Round {r}" + (f"\n{' '.join(extra)}" if extra else ""))
+        when = wording.when_text(info.date, info.time) if info is not None else ""
+        titles.append(f"Round {r}" + (f"\n{when}" if when else ""))
     return titles

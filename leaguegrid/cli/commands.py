@@ -63,7 +63,8 @@ def cmd_plan(args: argparse.Namespace) -> int:
         terms = planning.parse_terms(args.score)
         hooks = engine.Hooks(budget=args.budget)
         outcome = planning.make_schedule(opened.league, opened.graph, args.rounds, args.seed,
-                                         args.draws, terms, hooks=hooks)
+                                         args.draws, terms, hooks=hooks,
+                                         uniform=args.uniform)
     except ValueError as err:
         raise UsageError(str(err)) from err
     render.print_plan(outcome, opened.league, sys.stdout, sys.stderr)

@@ -14,7 +14,14 @@ from leaguegrid.app.league import OpenedLeague
 from leaguegrid.app.planning import PlanOutcome
 from leaguegrid.app.whatif import WhatIfOutcome
 from leaguegrid.core.model import League, Problem
-from leaguegrid.core.wording import count_text, counted_note, plural, rules_note, times_text
+from leaguegrid.core.wording import (
+    count_text,
+    counted_note,
+    plural,
+    rules_note,
+    times_text,
+    when_text,
+)
 from leaguegrid.scheduling.dates import DatesError, dated_fixtures
 
 
@@ -163,6 +170,8 @@ def print_plan(outcome: PlanOutcome, league: League, out: TextIO, err: TextIO) -
     if result.assignments is not None:
         print(f"Valid assignments for {plural(k, 'round')}: {count_text(result.assignments)} "
               "(exact)", file=out)
+    if outcome.breaks_line:
+        print(outcome.breaks_line, file=out)
     for note in schedule.notes:
         print(f"Note: {note}", file=out)
     for line in (counted_note(schedule.rules_counted), rules_note(schedule.rules_generator)):
@@ -178,8 +187,7 @@ def print_plan(outcome: PlanOutcome, league: League, out: TextIO, err: TextIO) -
         info = row.round
         if info.number != current:
             current = info.number
-            when = " ".join(x for x in (info.date and info.date.isoformat(),
-                                        info.time and info.time.strftime("%H:%M")) if x)
+            when = when_text(info.date, info.time)
             print(f"\nRound {info.number}" + (f" ({when})" if when else ""), file=out)
         f = row.fixture
         place = f" at {f.venue}" + (f", pitch {f.pitch}" if f.pitch else "") if f.venue else ""

@@ -1,4 +1,5 @@
-"""The canonical round robin timetables with fewest breaks, over team indices 0..n-1.
+"""Round robin timetables with fewest breaks, over team indices 0..n-1, and the pairings
+LeagueGrid generates from a Teams sheet (in the same order, with the same home sides).
 
 Circle method with de Werra's home-away rule ("Scheduling in sports", 1981): team n-1 stays
 put and meets team r in round r; teams r + i and r - i (mod n - 1) meet too, the first at home
@@ -7,6 +8,8 @@ when i is odd. Every compact single round robin so made has n - 2 breaks, the mi
 """
 
 from __future__ import annotations
+
+from collections.abc import Sequence
 
 Game = tuple[int, int]  # (home, away)
 
@@ -42,3 +45,10 @@ def halves_double(teams: int) -> list[list[Game]]:
     With n odd that would give the last round's bye twice in a row: mirrored instead."""
     first = single_round_robin(teams)
     return first + swapped(first[::-1] if teams % 2 == 0 else first)
+
+
+def pairings(teams: Sequence[str]) -> list[tuple[str, str]]:
+    """Every pair of `teams` once as (home, away), round by round of the single round robin
+    above: home counts within one of each other, and with these sides some order of the
+    rounds (that one) has the fewest breaks there can be."""
+    return [(teams[h], teams[a]) for games in single_round_robin(len(teams)) for h, a in games]

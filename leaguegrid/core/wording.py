@@ -19,6 +19,7 @@ CAUTION = (
 )
 METHODS = {"uniform": "drawn uniformly at random from every valid assignment",
            "search": "found by the rule-aware generator",
+           "optimised": "optimised for the fewest breaks, every rule kept",
            "edited": "edited by hand"}
 
 
@@ -146,6 +147,24 @@ def long_work_text(seconds: float | None, budget: float | None, quick: float) ->
         return (f"Counting; the exact work may take longer than the {budget:.0f} s allowed: what "
                 "does not finish in time is shown as a labelled estimate (Esc cancels)")
     return f"Counting; this may take about {seconds:.0f} s (Esc cancels)"
+
+
+def when_text(date: Any, time: Any) -> str:
+    """A round's date and time as shown on screen and on the command line: '2025-09-06 10:30',
+    either part alone, or '' when the round has neither."""
+    parts = [date.isoformat() if date is not None else None,
+             time.strftime("%H:%M") if time is not None else None]
+    return " ".join(p for p in parts if p)
+
+
+def breaks_text(total: int, bound: int | None) -> str:
+    """'Breaks: 8 (lower bound 8: optimal)': a team's two games in a row on the same side,
+    against the proven lower bound where one is known."""
+    if bound is None:
+        return f"Breaks: {total} (no lower bound known for these rounds)"
+    if total <= bound:
+        return f"Breaks: {total} (lower bound {bound}: optimal)"
+    return f"Breaks: {total} (lower bound {bound})"
 
 
 def sentence(text: str) -> str:

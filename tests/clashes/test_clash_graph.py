@@ -15,7 +15,7 @@ from leaguegrid.clashes.graph import (
     without_reasons,
 )
 from leaguegrid.core.model import ClashRow, Fixture, League, Reason, Settings, Split, Venue
-from leaguegrid.io.read.roundrobin import round_robin
+from leaguegrid.core.round_robin import pairings
 
 
 def league_of(*fixtures: Fixture, **extra) -> League:
@@ -30,7 +30,7 @@ def test_round_robin_clash_graph_is_the_line_graph_of_the_complete_graph():
     # Textbook: fixtures of a single round-robin clash exactly when they share a team, so the
     # clash graph is the line graph of K_n (n(n-1)/2 vertices, each of degree 2(n-2)).
     teams = [f"T{i}" for i in range(6)]
-    league = league_of(*[Fixture(f"{h} v {a}", h, a) for h, a in round_robin(teams)])
+    league = league_of(*[Fixture(f"{h} v {a}", h, a) for h, a in pairings(teams)])
     graph = build_clash_graph(league)
     assert (graph.number_of_nodes(), graph.number_of_edges()) == (15, 60)
     assert nx.is_isomorphic(graph, nx.line_graph(nx.complete_graph(6)))

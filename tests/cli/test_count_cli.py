@@ -147,7 +147,7 @@ def test_no_window_prints_the_reason_and_the_demo_counts(cli, monkeypatch) -> No
     assert err.startswith(sentence + "\n")
     assert "Showing the counts of season.xlsx on the command line instead." in err
     # the demo season: two six-team divisions, 30 fixtures, 6 rounds at the fewest
-    assert out.startswith("Hollowmere Junior League: 30 fixtures, 137 clashing pairs\n")
+    assert out.startswith("Hollowmere Junior League: 30 fixtures, 142 clashing pairs\n")
     assert "Fewest rounds: 6\n" in out
 
 

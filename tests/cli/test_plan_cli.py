@@ -32,6 +32,21 @@ def test_plan_six_team_round_robin_is_a_valid_schedule(cli, round_robin, tmp_pat
         assert sorted(teams) == sorted(set(teams)) and len(teams) == 6  # each team once
 
 
+def test_plan_prints_breaks_against_the_published_bound(cli, round_robin) -> None:
+    book = round_robin(8)
+    code, out, _ = cli("plan", str(book), "--rounds", "7", "--seed", "3")
+    assert code == 0
+    # de Werra 1981: a compact single round robin of 8 teams has at least 6 breaks
+    assert "Breaks: 6 (lower bound 6: optimal)" in out.splitlines()
+    assert "Note: optimised for the fewest breaks from the round robin timetable LeagueGrid " \
+           "generated" in out.splitlines()
+    code, out, _ = cli("plan", str(book), "--rounds", "7", "--seed", "3", "--uniform")
+    assert code == 0
+    line = next(x for x in out.splitlines() if x.startswith("Breaks: "))
+    assert line.endswith("(lower bound 6)") or line == "Breaks: 6 (lower bound 6: optimal)"
+    assert f"Note: drawn uniformly from all {6240 * 5040:,} valid assignments" in out  # A000438
+
+
 def test_plan_same_seed_same_schedule_and_seed_printed(cli, round_robin) -> None:
     book = str(round_robin(6))
     _, first, _ = cli("plan", book, "--rounds", "6", "--seed", "2024")

@@ -11,12 +11,12 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from leaguegrid.core.model import Fixture, League
-from leaguegrid.scheduling.breaks import break_lower_bound, count_breaks, team_byes
-from leaguegrid.scheduling.canonical import (
+from leaguegrid.core.round_robin import (
     halves_double,
     mirrored_double,
     single_round_robin,
 )
+from leaguegrid.scheduling.breaks import break_lower_bound, count_breaks, team_byes
 
 Rounds = list[list[tuple[int, int]]]
 

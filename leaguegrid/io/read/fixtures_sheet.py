@@ -7,10 +7,10 @@ from dataclasses import dataclass, field
 
 from leaguegrid.core.model import Fixture
 from leaguegrid.core.names import name_key
+from leaguegrid.core.round_robin import pairings
 from leaguegrid.io.read.columns import Row, Table, require
 from leaguegrid.io.read.context import ReadContext
 from leaguegrid.io.read.problems import Place
-from leaguegrid.io.read.roundrobin import round_robin
 from leaguegrid.io.read.rounds_sheet import round_cell
 from leaguegrid.io.read.values import split_values, yes_no
 
@@ -88,7 +88,7 @@ def generate_fixtures(teams: TeamsRead, ctx: ReadContext) -> list[Fixture]:
                 "the division has only one team, so it has no fixtures",
                 Place(teams.sheet, teams.rows[members[0]], teams.division_header, division),
             )
-        for home, away in round_robin(members):
+        for home, away in pairings(members):
             first.append(_generated(home, away, division, 1, ctx))
     fixtures = list(first)
     if ctx.settings.legs == 2:

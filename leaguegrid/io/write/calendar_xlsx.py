@@ -40,7 +40,7 @@ from leaguegrid.core.dated import (
     team_names,
 )
 from leaguegrid.core.model import League, Schedule
-from leaguegrid.core.wording import CAUTION
+from leaguegrid.core.wording import CAUTION, METHODS
 from leaguegrid.io.write.atomic import StrPath, atomic_write, refuse_overwriting_input
 from leaguegrid.io.write.csv_out import FORMULA_START
 
@@ -216,11 +216,7 @@ def _summary_rows(league: League, schedule: Schedule, s: CalendarSummary) -> lis
         count_row = [f"Valid round assignments for {k} rounds (estimate)", s.assignments_estimate]
     else:
         count_row = [f"Valid round assignments for {k} rounds", "not computed"]
-    method = (
-        "uniform draw: every valid assignment equally likely"
-        if schedule.method == "uniform"
-        else "search under the generator's rules"
-    )
+    method = METHODS.get(schedule.method, schedule.method)
     rows: list[list[object]] = [
         ["League", league.settings.league or league.name],
         ["Made from", Path(league.source).name if league.source else ""],

@@ -200,7 +200,7 @@ def test_summary_sheet_rows(tmp_path):
         ("Fewest rounds", 5),
         ("Rounds in this schedule", 6),
         ("Valid round assignments for 6 rounds (exact)", "12345678901234567890"),
-        ("Schedule made by", "uniform draw: every valid assignment equally likely"),
+        ("Schedule made by", "drawn uniformly at random from every valid assignment"),
         ("Seed", str(2**70 + 5)),
         ("Rule met, included in the counts", "clashes"),
         ("Rule met, included in the counts", "pins"),

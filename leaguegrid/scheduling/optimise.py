@@ -1,0 +1,189 @@
+"""Schedules with few breaks: a seeded local search over valid schedules, every hard rule kept.
+
+The start is the round robin timetable LeagueGrid generated from a Teams sheet (each division's
+pairings in core.round_robin's order, whose rounds in that order have the fewest breaks there
+can be: de Werra 1981), when it holds every rule; otherwise a valid schedule from the uniform
+draw or the rule search. Then Kempe-chain moves (textbook graph colouring: swapping two rounds
+along a connected set of clashing fixtures keeps every clash apart), accepted when the breaks
+do not rise and now and then when they do (simulated annealing), for a fixed number of steps:
+the same league and seed give the same schedule on any machine and under any load. A budget
+or Cancel only ends the search early, with the best schedule so far.
+"""
+
+from __future__ import annotations
+
+import math
+import random
+from dataclasses import dataclass
+
+from leaguegrid import engine
+from leaguegrid.core.model import League
+from leaguegrid.scheduling.breaks import BreakCount, break_lower_bound, count_breaks
+from leaguegrid.scheduling.constraints import CountingModel
+from leaguegrid.scheduling.rules import check_generator
+
+STEPS = 4000  # local-search steps (each one Kempe-chain move tried)
+CHECK_EVERY = 64  # steps between budget and cancel checks
+
+
+@dataclass
+class Optimised:
+    """The improved schedule (fixture label -> round) and its breaks against the bound."""
+
+    assignment: dict[str, int]
+    breaks: BreakCount
+    bound: int | None  # a proven lower bound on the breaks, None when none is known
+    start: str  # "timetable" (the generated round robin) or "schedule" (the one given)
+    steps: int
+    stopped: bool = False  # the budget or Cancel ended the search before its last step
+
+    @property
+    def optimal(self) -> bool:
+        """True when the breaks reach the proven lower bound."""
+        return self.bound is not None and self.breaks.total <= self.bound
+
+
+def division_teams(league: League) -> dict[str | None, list[str]]:
+    """Division -> its teams in the order LeagueGrid generated their pairings (Teams sheet)."""
+    out: dict[str | None, list[str]] = {}
+    for name, team in league.teams.items():
+        out.setdefault(team.division, []).append(name)
+    return out
+
+
+def breaks_bound(league: League, rounds: int) -> int | None:
+    """The sum over divisions of the published lower bounds on breaks, when every division is
+    a complete round robin played compactly in `rounds`; None when no bound is known."""
+    legs = league.settings.legs
+    style = "single" if legs == 1 else "halves" if league.settings.return_half else "double"
+    total = 0
+    pairs: dict[str | None, dict[frozenset[str], int]] = {}
+    for f in league.fixtures:
+        if f.home and f.away:
+            met = pairs.setdefault(f.division, {})
+            key = frozenset((f.home, f.away))
+            met[key] = met.get(key, 0) + 1
+    for division, teams in division_teams(league).items():
+        n = len(teams)
+        met = pairs.get(division, {})
+        if n < 2 or len(met) != n * (n - 1) // 2 or set(met.values()) != {legs}:
+            return None
+        if rounds != legs * (n - 1 + n % 2):
+            return None
+        total += break_lower_bound(n, style, rounds)
+    return total
+
+
+def timetable_start(league: League, rounds: int) -> dict[str, int] | None:
+    """The generated round robin in its own round order (first legs, then the return legs in
+    reverse order, so each half is a single round robin with the fewest breaks), or None when
+    the fixtures are not LeagueGrid's generated ones or do not fit `rounds`."""
+    if any(f.row is not None for f in league.fixtures):
+        return None
+    teams = division_teams(league)
+    by_division: dict[str | None, list[list[str]]] = {}
+    for f in league.fixtures:
+        legs = by_division.setdefault(f.division, [[], []])
+        if f.leg not in (1, 2):
+            return None
+        legs[f.leg - 1].append(f.label)
+    out: dict[str, int] = {}
+    for division, (first, second) in by_division.items():
+        n = len(teams.get(division, []))
+        per_round = n // 2
+        span = n - 1 + n % 2  # rounds of one leg: n - 1, or n with a bye each when n is odd
+        if per_round == 0 or len(first) != per_round * span:
+            return None
+        if second and len(second) != len(first):
+            return None
+        half = max(span, (rounds + 1) // 2) if league.settings.return_half else span
+        for i, label in enumerate(first):
+            out[label] = i // per_round + 1
+        for i, label in enumerate(second):
+            r = i // per_round
+            out[label] = half + (span - r if n % 2 == 0 else r + 1)
+    if max(out.values(), default=0) > rounds:
+        return None
+    return out
+
+
+def holds(model: CountingModel, assignment: dict[str, int]) -> bool:
+    """True when a complete schedule keeps every counted and generator-only rule."""
+    node_round: dict[str, int] = {}
+    for label, r in assignment.items():
+        node = model.node_of[label]
+        if node_round.setdefault(node, r) != r:
+            return False  # tied fixtures apart
+    if len(node_round) != model.graph.number_of_nodes():
+        return False
+    if any(r not in model.domain(v) for v, r in node_round.items()):
+        return False
+    if any(node_round[u] == node_round[v] for u, v in model.graph.edges):
+        return False
+    rules = model.generator
+    return not (rules.active and check_generator(model.league, rules, assignment, model.rounds))
+
+
+def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
+                 hooks: engine.Hooks | None = None, steps: int = STEPS) -> Optimised:
+    """The best schedule the local search finds from the timetable (when it holds) or from
+    `start` (a valid schedule), by breaks; deterministic for a given seed and `steps`."""
+    league, rounds = model.league, model.rounds
+    timetable = timetable_start(league, rounds)
+    origin = "timetable" if timetable is not None and holds(model, timetable) else "schedule"
+    current = dict(timetable if origin == "timetable" else start)
+    bound = breaks_bound(league, rounds)
+    best, best_breaks = dict(current), count_breaks(league, current)
+    cost = best_breaks.total
+    rng = random.Random(f"{seed}:breaks")
+    nodes = sorted(model.graph.nodes)
+    members = {v: [f for f in model.members[v]] for v in nodes}
+    done, stopped = 0, False
+    for step in range(steps):
+        if bound is not None and best_breaks.total <= bound:
+            break
+        if hooks is not None and step % CHECK_EVERY == 0:
+            try:
+                hooks.report(step / steps, "fewer breaks")
+            except (engine.BudgetExceeded, engine.Cancelled):
+                stopped = True
+                break
+        done = step + 1
+        moved = _kempe_move(model, current, rng.choice(nodes), rng.randint(1, rounds), members)
+        if moved is None:
+            continue
+        trial = {**current, **moved}
+        if model.generator.active and check_generator(league, model.generator, trial, rounds):
+            continue
+        new = count_breaks(league, trial).total
+        heat = 2.0 * (1 - step / steps) + 0.05
+        if new <= cost or rng.random() < math.exp((cost - new) / heat):
+            current, cost = trial, new
+            if new < best_breaks.total:
+                best, best_breaks = dict(trial), count_breaks(league, trial)
+    return Optimised(best, best_breaks, bound, origin, done, stopped)
+
+
+def _kempe_move(model: CountingModel, assignment: dict[str, int], node: str, target: int,
+                members: dict[str, list[str]]) -> dict[str, int] | None:
+    """The fixtures' new rounds when `node` and its Kempe chain between its round and `target`
+    swap rounds; None when the chain holds a pinned node or lands one on an excluded round."""
+    here = assignment[members[node][0]]
+    if target == here:
+        return None
+    chain, todo = {node}, [node]
+    graph = model.graph
+    while todo:
+        u = todo.pop()
+        for w in graph[u]:
+            if w not in chain and assignment[members[w][0]] in (here, target):
+                chain.add(w)
+                todo.append(w)
+    moved: dict[str, int] = {}
+    for u in chain:
+        new = target if assignment[members[u][0]] == here else here
+        if u in model.pins or new in model.exclusions.get(u, ()):
+            return None
+        for label in members[u]:
+            moved[label] = new
+    return moved

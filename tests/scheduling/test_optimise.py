@@ -1,0 +1,139 @@
+"""Schedules optimised for breaks, checked by a checker written here (not the generator's code):
+each fixture once in 1..K, a team at most once a round, a ground at most once a round, every
+counted rule; breaks recounted (a team's games in round order, byes skipped)."""
+
+from __future__ import annotations
+
+import itertools
+from collections import Counter
+
+import openpyxl
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from leaguegrid.clashes.graph import build_clash_graph
+from leaguegrid.core.model import Fixture, League
+from leaguegrid.io.read.league_reader import load_league
+from leaguegrid.scheduling.constraints import build_model
+from leaguegrid.scheduling.draw import plan
+from leaguegrid.scheduling.optimise import fewer_breaks, timetable_start
+
+
+def checked_breaks(league: League, assignment: dict[str, int], rounds: int) -> int:
+    """Assert the schedule is complete and clash-free by team and ground; its breaks."""
+    assert sorted(assignment) == sorted(f.label for f in league.fixtures)
+    sides: dict[str, list[tuple[int, str]]] = {}
+    per_round_team: Counter = Counter()
+    per_round_ground: Counter = Counter()
+    for f in league.fixtures:
+        r = assignment[f.label]
+        assert 1 <= r <= rounds
+        if f.pin is not None:
+            assert r == f.pin
+        for team, side in ((f.home, "H"), (f.away, "A")):
+            sides.setdefault(team, []).append((r, side))
+            per_round_team[(team, r)] += 1
+        if f.venue:
+            per_round_ground[(f.venue.casefold(), r)] += 1
+    assert max(per_round_team.values()) == 1, "a team twice in a round"
+    assert not per_round_ground or max(per_round_ground.values()) == 1, "a ground twice"
+    total = 0
+    for games in sides.values():
+        games.sort()
+        total += sum(a[1] == b[1] for a, b in itertools.pairwise(games))
+    return total
+
+
+def teams_league(tmp_path, n: int, legs: int = 1, return_half: bool = False) -> League:
+    """A Teams-only workbook of n teams, each with a ground of its own, read by the reader."""
+    book = openpyxl.Workbook()
+    sheet = book.active
+    sheet.title = "Teams"
+    sheet.append(["Team", "Venue"])
+    for i in range(n):
+        sheet.append([f"Side {i + 1}", f"Ground {i + 1}"])
+    settings_sheet = book.create_sheet("Settings")
+    settings_sheet.append(["Setting", "Value"])
+    settings_sheet.append(["Legs", legs])
+    if return_half:
+        settings_sheet.append(["Return half", "yes"])
+    path = tmp_path / f"teams-{n}-{legs}.xlsx"
+    book.save(path)
+    result = load_league(path)
+    assert result.ok, [str(p) for p in result.problems]
+    return result.league
+
+
+def optimised(league: League, rounds: int, seed: int = 1):
+    model = build_model(league, build_clash_graph(league), rounds)
+    start = timetable_start(league, rounds)
+    assert start is not None
+    return fewer_breaks(model, start, seed)
+
+
+@pytest.mark.parametrize("n", range(4, 21, 2))
+def test_single_round_robin_from_a_teams_sheet_reaches_n_minus_2(tmp_path, n):
+    # de Werra 1981: a compact single round robin of n teams (n even) has at least n - 2
+    # breaks, and that many can be reached.
+    league = teams_league(tmp_path, n)
+    got = optimised(league, n - 1)
+    assert checked_breaks(league, got.assignment, n - 1) == got.breaks.total == n - 2
+    assert got.bound == n - 2 and got.optimal
+
+
+@pytest.mark.parametrize("n", range(3, 14, 2))
+def test_odd_single_round_robin_has_no_break(tmp_path, n):
+    # de Werra 1981: n odd, one bye each, a single round robin can have no break.
+    league = teams_league(tmp_path, n)
+    got = optimised(league, n)
+    assert checked_breaks(league, got.assignment, n) == 0 == got.bound
+    played: dict[str, set[int]] = {}
+    for f in league.fixtures:
+        for t in f.teams:
+            played.setdefault(t, set()).add(got.assignment[f.label])
+    assert {n - len(rounds) for rounds in played.values()} == {1}  # one bye each
+
+
+@pytest.mark.parametrize("n", [4, 6, 8, 10])
+def test_return_half_reaches_2n_minus_4(tmp_path, n):
+    # Each half a single round robin (de Werra 1981: n - 2 each); the junction adds none.
+    league = teams_league(tmp_path, n, legs=2, return_half=True)
+    k = 2 * (n - 1)
+    got = optimised(league, k)
+    assert checked_breaks(league, got.assignment, k) == got.breaks.total == 2 * n - 4
+    first = {f.label: got.assignment[f.label] for f in league.fixtures if f.leg == 1}
+    assert max(first.values()) <= n - 1 < min(
+        got.assignment[f.label] for f in league.fixtures if f.leg == 2)
+    assert got.optimal
+
+
+def test_home_games_balanced_within_one(tmp_path):
+    league = teams_league(tmp_path, 10)
+    home = Counter(f.home for f in league.fixtures)
+    assert sorted(set(home.values())) == [4, 5]
+
+
+leagues = st.lists(
+    st.tuples(st.integers(0, 5), st.integers(0, 5)).filter(lambda p: p[0] != p[1]),
+    min_size=3, max_size=9, unique=True)
+
+
+@settings(max_examples=25, deadline=None)
+@given(pairs=leagues, extra=st.integers(0, 2), seed=st.integers(0, 10_000))
+def test_any_league_stays_valid_and_never_gains_breaks(pairs, extra, seed):
+    fixtures = [Fixture(f"T{h} v T{a} ({i})", f"T{h}", f"T{a}", venue=f"Ground {h}")
+                for i, (h, a) in enumerate(pairs)]
+    league = League("random", "", fixtures)
+    graph = build_clash_graph(league)
+    degree = Counter(t for f in fixtures for t in f.teams)
+    rounds = max(degree.values()) + 2 + extra
+    result = plan(league, graph, rounds, seed)
+    if result.schedule is None:
+        return
+    start = result.schedule.assignment
+    before = checked_breaks(league, start, rounds)
+    got = fewer_breaks(result.model, start, seed, steps=300)
+    assert checked_breaks(league, got.assignment, rounds) == got.breaks.total <= before
+    again = fewer_breaks(result.model, start, seed, steps=300)
+    assert again.assignment == got.assignment  # the same seed gives the same schedule
