@@ -52,3 +52,51 @@ def pairings(teams: Sequence[str]) -> list[tuple[str, str]]:
     above: home counts within one of each other, and with these sides some order of the
     rounds (that one) has the fewest breaks there can be."""
     return [(teams[h], teams[a]) for games in single_round_robin(len(teams)) for h, a in games]
+
+
+def partners(teams: int) -> list[tuple[int, int]]:
+    """Pairs of places in single_round_robin whose home-away patterns are complementary (one
+    at home while the other is away, in every round both play): two teams that share a ground
+    placed there never want it on the same day."""
+    if teams % 2:
+        return [(s, s + 1) for s in range(0, teams - 1, 2)]
+    return [(0, teams - 1)] + [(s, s + 1) for s in range(1, teams - 1, 2)]
+
+
+def seat_teams(divisions: Sequence[Sequence[str]],
+               ground: dict[str, str | None]) -> list[list[str]]:
+    """Each division's teams in the order of their places in the timetable, so that teams
+    sharing a ground get complementary places: within a division, and across divisions of the
+    same size (which play their rounds side by side). Otherwise sheet order."""
+    taken: dict[tuple[str, int], int] = {}  # (ground, division size) -> a place used there
+    out = []
+    for members in divisions:
+        n = len(members)
+        mate = {a: b for p in partners(n) for a, b in (p, p[::-1])}
+        seat: dict[int, str] = {}
+        left = list(members)
+        for name in members:  # the ground is used by an earlier division of the same size
+            g = ground.get(name)
+            want = mate.get(taken.get((g, n), -1)) if g else None
+            if want is not None and want not in seat:
+                seat[want] = name
+                left.remove(name)
+        by_ground: dict[str, list[str]] = {}
+        for name in left:
+            if ground.get(name):
+                by_ground.setdefault(ground[name], []).append(name)
+        pairs = [p for p in partners(n) if p[0] not in seat and p[1] not in seat]
+        for names in by_ground.values():  # two teams of one division share a ground
+            while len(names) >= 2 and pairs:
+                a, b = pairs.pop(0)
+                seat[a], seat[b] = names.pop(0), names.pop(0)
+                left.remove(seat[a])
+                left.remove(seat[b])
+        free = [s for s in range(n) if s not in seat]
+        seat.update(zip(free, left, strict=True))
+        order = [seat[s] for s in range(n)]
+        for s, name in enumerate(order):
+            if ground.get(name):
+                taken.setdefault((ground[name], n), s)
+        out.append(order)
+    return out

@@ -14,6 +14,8 @@ from leaguegrid.core.model import Fixture, League
 from leaguegrid.core.round_robin import (
     halves_double,
     mirrored_double,
+    partners,
+    seat_teams,
     single_round_robin,
 )
 from leaguegrid.scheduling.breaks import break_lower_bound, count_breaks, team_byes
@@ -133,3 +135,33 @@ def test_a_bye_between_two_home_games_is_a_break():
     league = League("t", "t", [Fixture("a", "X", "Y"), Fixture("b", "X", "Z")])
     assert count_breaks(league, {"a": 1, "b": 3}).per_team == {"X": 1, "Y": 0, "Z": 0}
     assert team_byes(league, {"a": 1, "b": 3}, 3) == {"X": [2], "Y": [2, 3], "Z": [1, 2]}
+
+
+def _pattern(rounds: Rounds, team: int) -> str:
+    return "".join("H" if any(h == team for h, _ in g) else "A" if any(a == team for _, a in g)
+                   else "-" for g in rounds)
+
+
+@pytest.mark.parametrize("n", range(3, 21))
+def test_partners_are_home_while_the_other_is_away(n):
+    rounds = single_round_robin(n)
+    pairs = partners(n)
+    assert len(pairs) == n // 2 and len({s for p in pairs for s in p}) == 2 * (n // 2)
+    for a, b in pairs:
+        both = [(x, y) for x, y in zip(_pattern(rounds, a), _pattern(rounds, b), strict=True)
+                if "-" not in (x, y)]
+        assert both and all(x != y for x, y in both), (a, b)
+
+
+def test_teams_sharing_a_ground_are_seated_as_partners_within_and_across_divisions():
+    under12 = ["Ash", "Beech", "Cedar", "Damson", "Elm", "Fir"]
+    under14 = ["Ash 14", "Gorse", "Holly", "Beech 14", "Ivy", "Juniper"]
+    ground = {name: name for name in under12 + under14}
+    ground.update({"Ash 14": "Ash", "Beech 14": "Beech", "Fir": "Cedar"})
+    first, second = seat_teams([under12, under14], ground)
+    assert sorted(first) == sorted(under12) and sorted(second) == sorted(under14)
+    mates = {frozenset(p) for p in partners(6)}
+    assert frozenset((first.index("Cedar"), first.index("Fir"))) in mates
+    for old, new in (("Ash", "Ash 14"), ("Beech", "Beech 14")):
+        assert frozenset((first.index(old), second.index(new))) in mates
+    assert seat_teams([under12], {}) == [under12]  # nothing shared: sheet order

@@ -137,3 +137,22 @@ def test_any_league_stays_valid_and_never_gains_breaks(pairs, extra, seed):
     assert checked_breaks(league, got.assignment, rounds) == got.breaks.total <= before
     again = fewer_breaks(result.model, start, seed, steps=300)
     assert again.assignment == got.assignment  # the same seed gives the same schedule
+
+
+def test_clubs_sharing_grounds_across_two_divisions_fit_the_compact_rounds(tmp_path):
+    # Two divisions of 6; three clubs have a team in each on one ground. Seated on
+    # complementary patterns, both divisions fit 5 rounds at 4 breaks each (de Werra 1981).
+    book = openpyxl.Workbook()
+    sheet = book.active
+    sheet.title = "Teams"
+    sheet.append(["Team", "Venue", "Division"])
+    for i in range(6):
+        sheet.append([f"Club {i} U12", f"Ground {i}", "U12"])
+    for i in range(6):
+        sheet.append([f"Club {i if i < 3 else i + 10} U14", f"Ground {i if i < 3 else i + 10}",
+                      "U14"])
+    path = tmp_path / "shared.xlsx"
+    book.save(path)
+    league = load_league(path).league
+    got = optimised(league, 5)
+    assert checked_breaks(league, got.assignment, 5) == got.breaks.total == 8 == got.bound

@@ -7,7 +7,7 @@ from dataclasses import dataclass, field
 
 from leaguegrid.core.model import Fixture
 from leaguegrid.core.names import name_key
-from leaguegrid.core.round_robin import pairings
+from leaguegrid.core.round_robin import pairings, seat_teams
 from leaguegrid.io.read.columns import Row, Table, require
 from leaguegrid.io.read.context import ReadContext
 from leaguegrid.io.read.problems import Place
@@ -76,13 +76,17 @@ def read_teams(table: Table, ctx: ReadContext) -> TeamsRead:
 
 
 def generate_fixtures(teams: TeamsRead, ctx: ReadContext) -> list[Fixture]:
-    """A single round-robin inside each division (teams with no division form one group);
-    with Legs = 2 the return fixtures follow, home and away swapped."""
+    """A single round-robin inside each division (teams with no division form one group), in
+    the timetable's order with its home sides, teams sharing a ground seated on complementary
+    home-away patterns; with Legs = 2 the return fixtures follow, home and away swapped."""
     groups: dict[str | None, list[str]] = {}
     for name in teams.order:
         groups.setdefault(ctx.teams[name].division, []).append(name)
+    ground = {name: name_key(team.venue) if team.venue else None
+              for name, team in ctx.teams.items()}
+    seated = seat_teams(list(groups.values()), ground)
     first: list[Fixture] = []
-    for division, members in groups.items():
+    for (division, _), members in zip(groups.items(), seated, strict=True):
         if len(members) < 2:
             ctx.report.warn(
                 "the division has only one team, so it has no fixtures",
