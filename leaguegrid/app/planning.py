@@ -11,11 +11,12 @@ from leaguegrid.app.defaults import SCORE_TERMS
 from leaguegrid.core import wording
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.scheduling import score
-from leaguegrid.scheduling.breaks import BreakCount, count_breaks
+from leaguegrid.scheduling.breaks import BreakCount, count_breaks, team_byes
 from leaguegrid.scheduling.check import check_schedule
+from leaguegrid.scheduling.constraints import build_model
 from leaguegrid.scheduling.dates import DatesError, round_dates
 from leaguegrid.scheduling.draw import PlanResult, fresh_seed, plan
-from leaguegrid.scheduling.optimise import breaks_bound, fewer_breaks
+from leaguegrid.scheduling.optimise import breaks_bound, fewer_breaks, holds, timetable_start
 from leaguegrid.scheduling.rules import Violation, generator_rules
 
 
@@ -82,8 +83,13 @@ def make_schedule(league: League, graph: nx.Graph, rounds: int, seed: int | None
     if draws > 1 and not terms:
         terms = dict.fromkeys(SCORE_TERMS, 1.0)
     job = hooks or engine.Hooks()
+    timetable = None
+    if not uniform and draws == 1:
+        timetable = timetable_start(league, rounds)
+        if timetable is not None and not holds(build_model(league, graph, rounds), timetable):
+            timetable = None
     result = plan(league, graph, rounds, seed, draws=draws, terms=terms,
-                  hooks=job.part(0.0, 0.7, share=0.7))
+                  hooks=job.part(0.0, 0.7, share=0.7), given=timetable)
     schedule = result.schedule
     if schedule is not None and result.score is not None:
         schedule.notes = [*schedule.notes, *("score " + line for line in result.score.lines())]
@@ -94,7 +100,8 @@ def make_schedule(league: League, graph: nx.Graph, rounds: int, seed: int | None
         outcome.breaks = count_breaks(league, schedule.assignment)
         return outcome
     better = fewer_breaks(result.model, schedule.assignment, seed, job.part(0.7, 1.0))
-    start = ("the round robin timetable LeagueGrid generated" if better.start == "timetable"
+    start = (wording.METHODS["timetable"].removeprefix("taken from ")
+             if better.start == "timetable"
              else f"a schedule {wording.METHODS.get(schedule.method, schedule.method)}")
     schedule.assignment = better.assignment
     schedule.method = "optimised"
@@ -103,6 +110,28 @@ def make_schedule(league: League, graph: nx.Graph, rounds: int, seed: int | None
                       + (", stopped early at the budget" if better.stopped else "")]
     outcome.breaks = better.breaks
     return outcome
+
+
+RULE_OF = {"clashes": "clash", "splits": "split", "ties": "tie", "pins": "pin",
+           "played": "played", "blocked": "blocked", "return half": "return half",
+           "venue capacity": "capacity", "max home run": "home run",
+           "max away run": "away run", "round balance": "balance"}
+
+
+def rules_met(league: League, graph: nx.Graph, schedule: Schedule) -> list[tuple[str, bool]]:
+    """Each rule the schedule was made under, in words, and whether the schedule keeps it
+    (checked again here, as for a schedule edited by hand)."""
+    broken = {v.rule for v in check_schedule(league, graph, schedule)}
+    out = []
+    for text in [*schedule.rules_counted, *schedule.rules_generator]:
+        name = RULE_OF.get(text.split(":", 1)[0].strip(), text)
+        out.append((text, name not in broken))
+    return out
+
+
+def byes(league: League, schedule: Schedule) -> dict[str, list[int]]:
+    """Team -> the rounds in which it has no game."""
+    return team_byes(league, schedule.assignment, schedule.rounds)
 
 
 def fewest_rounds(result: PlanResult, hooks: engine.Hooks | None = None) -> int | None:

@@ -4,7 +4,9 @@ from __future__ import annotations
 
 import argparse
 import datetime as dt
+import json
 import sys
+import time
 from pathlib import Path
 
 from leaguegrid import engine
@@ -62,12 +64,24 @@ def cmd_plan(args: argparse.Namespace) -> int:
     try:
         terms = planning.parse_terms(args.score)
         hooks = engine.Hooks(budget=args.budget)
+        started = time.perf_counter()
         outcome = planning.make_schedule(opened.league, opened.graph, args.rounds, args.seed,
                                          args.draws, terms, hooks=hooks,
                                          uniform=args.uniform)
+        seconds = time.perf_counter() - started
     except ValueError as err:
         raise UsageError(str(err)) from err
-    render.print_plan(outcome, opened.league, sys.stdout, sys.stderr)
+    report = sys.stderr if args.json else sys.stdout  # with --json stdout holds the JSON only
+    if args.json:
+        schedule = outcome.schedule
+        rules = planning.rules_met(opened.league, opened.graph, schedule) if schedule else []
+        byes = planning.byes(opened.league, schedule) if schedule else {}
+        data = render.plan_json(outcome, opened.league, rules, byes, seconds)
+        print(json.dumps(data, indent=2, ensure_ascii=False), file=sys.stdout)
+        if schedule is None:
+            render.print_plan(outcome, opened.league, sys.stderr, sys.stderr)
+    else:
+        render.print_plan(outcome, opened.league, sys.stdout, sys.stderr)
     if outcome.schedule is None:
         return PLAN_EXITS[outcome.result.status]
     targets = export.ExportTargets(xlsx=args.out, csv=args.csv, ics=args.ics)
@@ -78,10 +92,10 @@ def cmd_plan(args: argparse.Namespace) -> int:
         written = export.export_schedule(opened.league, opened.graph, outcome.schedule,
                                          targets, fewest).written
     except export.ExportFailed as err:
-        render.print_written(err.written, sys.stdout)
+        render.print_written(err.written, report)
         print(f"leaguegrid plan: could not write: {err}", file=sys.stderr)
         return WRITE_FAILED
-    render.print_written(written, sys.stdout)
+    render.print_written(written, report)
     return OK
 
 

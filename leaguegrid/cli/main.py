@@ -67,6 +67,7 @@ def build_parser() -> argparse.ArgumentParser:
                       help="draw N schedules and keep the best by --score (every term when "
                       "--score is not given)")
     plan.add_argument("--score", metavar="TERMS", help="comma-separated score terms")
+    plan.add_argument("--json", action="store_true", help="one JSON object on stdout")
     plan.add_argument("--uniform", action="store_true",
                       help="draw uniformly among all valid schedules instead of optimising")
     plan.add_argument("--out", type=Path, metavar="CALENDAR.xlsx")

@@ -197,6 +197,33 @@ def print_plan(outcome: PlanOutcome, league: League, out: TextIO, err: TextIO) -
         print(f"\nEmpty rounds: {', '.join(map(str, empty))}", file=out)
 
 
+def plan_json(outcome: PlanOutcome, league: League, rules: list[tuple[str, bool]],
+              byes: dict[str, list[int]], seconds: float) -> dict:
+    """`plan --json`: the schedule, its breaks against the bound, byes and rules, as data."""
+    schedule, result = outcome.schedule, outcome.result
+    method = None
+    if schedule is not None:
+        method = {"optimised": "optimised", "uniform": "uniform"}.get(
+            schedule.method, "best-of" if result.score is not None else schedule.method)
+    fixtures = []
+    if schedule is not None:
+        for row in dated_fixtures(league, schedule):
+            f = row.fixture
+            fixtures.append({"label": f.label, "home": f.home, "away": f.away,
+                             "venue": f.venue, "pitch": f.pitch, "division": f.division,
+                             "round": row.round.number,
+                             "date": row.round.date.isoformat() if row.round.date else None})
+    breaks = None if outcome.breaks is None else {
+        "total": outcome.breaks.total, "lower_bound": outcome.breaks_bound,
+        "optimal": outcome.optimal, "per_team": outcome.breaks.per_team}
+    return {"rounds": outcome.rounds, "seed": outcome.seed, "method": method,
+            "status": result.status, "reasons": result.reasons,
+            "assignments": result.assignments, "fixtures": fixtures, "breaks": breaks,
+            "byes": byes, "rules": [{"rule": text, "met": met} for text, met in rules],
+            "notes": schedule.notes if schedule is not None else [],
+            "seconds": round(seconds, 3)}
+
+
 def print_written(paths: list, out: TextIO) -> None:
     """The files an export wrote."""
     if paths:

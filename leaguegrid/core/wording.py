@@ -20,6 +20,7 @@ CAUTION = (
 METHODS = {"uniform": "drawn uniformly at random from every valid assignment",
            "search": "found by the rule-aware generator",
            "optimised": "optimised for the fewest breaks, every rule kept",
+           "timetable": "taken from the round robin timetable LeagueGrid generated",
            "edited": "edited by hand"}
 
 

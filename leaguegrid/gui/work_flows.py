@@ -80,20 +80,28 @@ class WorkFlows:
         self._set_rounds(k, user=True)
 
     # schedules --------------------------------------------------------------------------
-    def draw_schedule(self: Any, seed: int | None = None, draws: int = 1) -> None:
-        """Draw a schedule for the rounds in the toolbar (a new seed unless one is given)."""
+    def draw_schedule(self: Any, seed: int | None = None, draws: int = 1,
+                      uniform: bool = False) -> None:
+        """Make a schedule for the rounds in the toolbar (a new seed unless one is given):
+        optimised for breaks, or a uniform draw."""
         if not self.doc.usable:
             return
         k = self.rounds_box.value()
         seed = random.SystemRandom().randrange(1, 2**31) if seed in (None, False) else seed
         lg, graph = self.working()
-        work = self._engine_job(planning.make_schedule, lg, graph, k, seed, draws)
+        work = self._engine_job(planning.make_schedule, lg, graph, k, seed, draws,
+                                uniform=uniform)
         label = "Drawing a schedule" if draws == 1 else f"Drawing {draws} schedules"
         self.runner.start(Job(label, work, self._schedule_done, budget=PLAN_BUDGET))
 
+    def draw_uniform(self: Any) -> None:
+        """Any one valid schedule, each equally likely (a new seed)."""
+        self.draw_schedule(uniform=True)
+
     def redraw_same_seed(self: Any) -> None:
-        if self.doc.schedule is not None and self.doc.schedule.seed is not None:
-            self.draw_schedule(self.doc.schedule.seed)
+        schedule = self.doc.schedule
+        if schedule is not None and schedule.seed is not None:
+            self.draw_schedule(schedule.seed, uniform=schedule.method == "uniform")
 
     def best_of_dialog(self: Any) -> None:
         n, ok = QInputDialog.getInt(self, "Best of many", "Schedules to draw:",

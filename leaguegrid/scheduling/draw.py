@@ -78,6 +78,7 @@ def plan(
     terms: dict[str, float] | None = None,
     hooks: engine.Hooks | None = None,
     rule_draws: int = RULE_DRAWS,
+    given: dict[str, int] | None = None,
 ) -> PlanResult:
     """A schedule for K rounds: uniform draws (best of `draws` by `terms`), or the rule search.
 
@@ -85,7 +86,8 @@ def plan(
     choice; draw it with fresh_seed() when the user gave none, and record it. With a budget,
     the exact count may use COUNT_SHARE of it and the draws DRAW_SHARE of what is left; when
     either does not finish, the rule search (seeded, not uniform) makes the schedule with the
-    rest, and the notes say so."""
+    rest, and the notes say so. `given`, a complete schedule known to keep every rule (the
+    generated timetable), is taken instead of any draw; the count is still made."""
     job = hooks or engine.Hooks()
     model = build_model(league, graph, rounds)
     result = PlanResult("impossible", seed, model=model)
@@ -105,9 +107,14 @@ def plan(
         result.status = "cancelled"
         return result
     except engine.BudgetExceeded:
+        if given is not None:
+            notes.append("the exact count did not finish within its share of the budget")
+            return _finish(result, league, model, [given], "timetable", terms, notes)
         notes.append("the exact count did not finish within its share of the budget, so no "
                      "uniform draw was made")
         return _by_search(result, league, model, seed, draws, terms, job, notes)
+    if given is not None and result.assignments:
+        return _finish(result, league, model, [given], "timetable", terms, notes)
     if result.assignments == 0:
         result.reasons = [why_none(model, job)]
         return result

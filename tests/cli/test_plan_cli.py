@@ -47,6 +47,39 @@ def test_plan_prints_breaks_against_the_published_bound(cli, round_robin) -> Non
     assert f"Note: drawn uniformly from all {6240 * 5040:,} valid assignments" in out  # A000438
 
 
+def test_plan_json_holds_the_schedule_its_breaks_and_nothing_else(cli, round_robin,
+                                                                   tmp_path) -> None:
+    book = round_robin(8)
+    code, out, err = cli("plan", str(book), "--rounds", "7", "--seed", "5", "--json",
+                         "--csv", str(tmp_path / "s.csv"))
+    assert code == 0
+    data = json.loads(out)  # stdout is the JSON object alone
+    assert "Wrote:" in err and "Wrote:" not in out
+    assert (data["rounds"], data["seed"], data["method"]) == (7, 5, "optimised")
+    assert len(data["fixtures"]) == 28
+    sides: dict[str, list[tuple[int, str]]] = {}
+    for f in data["fixtures"]:
+        sides.setdefault(f["home"], []).append((f["round"], "H"))
+        sides.setdefault(f["away"], []).append((f["round"], "A"))
+    recount = {t: sum(a[1] == b[1] for a, b in zip(sorted(g), sorted(g)[1:], strict=False))
+               for t, g in sides.items()}
+    assert data["breaks"]["per_team"] == recount
+    # de Werra 1981: 8 teams, one leg, 7 rounds: at least 6 breaks, and 6 can be reached
+    assert data["breaks"] == {"total": 6, "lower_bound": 6, "optimal": True,
+                              "per_team": recount}
+    assert data["byes"] == {t: [] for t in sorted(sides)}
+    assert data["rules"] == [{"rule": "clashes: 168 pairs of fixtures never share a round",
+                              "met": True}]
+
+
+def test_plan_json_when_nothing_is_possible(cli, round_robin) -> None:
+    code, out, err = cli("plan", str(round_robin(6)), "--rounds", "4", "--seed", "1", "--json")
+    assert code == 3
+    data = json.loads(out)
+    assert (data["status"], data["fixtures"], data["breaks"]) == ("impossible", [], None)
+    assert "No schedule with 4 rounds exists:" in err
+
+
 def test_plan_same_seed_same_schedule_and_seed_printed(cli, round_robin) -> None:
     book = str(round_robin(6))
     _, first, _ = cli("plan", book, "--rounds", "6", "--seed", "2024")

@@ -110,6 +110,21 @@ def test_tie_and_add_a_clash_ask_for_the_fixtures_they_pair(qtbot, window, monke
     ]
 
 
+def test_draw_optimises_and_the_uniform_draw_stays_uniform(qtbot, window, tmp_path):
+    open_small(qtbot, window, tmp_path)
+    window.act_draw.trigger()
+    wait_idle(qtbot, window)
+    assert window.doc.schedule.method == "optimised"
+    window.act_uniform.trigger()
+    wait_idle(qtbot, window)
+    uniform = window.doc.schedule
+    assert uniform.method == "uniform"
+    window.act_redraw.trigger()  # the same seed, the same kind of draw, the same schedule
+    wait_idle(qtbot, window)
+    assert window.doc.schedule.method == "uniform"
+    assert window.doc.schedule.assignment == uniform.assignment
+
+
 def test_moving_a_fixture_says_at_once_what_it_breaks(qtbot, window, tmp_path):
     open_small(qtbot, window, tmp_path)
     window.act_draw.trigger()
