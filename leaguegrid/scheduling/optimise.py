@@ -137,7 +137,7 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
     cost = best_breaks.total
     rng = random.Random(f"{seed}:breaks")
     nodes = sorted(model.graph.nodes)
-    members = {v: [f for f in model.members[v]] for v in nodes}
+    members = {v: list(model.members[v]) for v in nodes}
     done, stopped = 0, False
     for step in range(steps):
         if bound is not None and best_breaks.total <= bound:
