@@ -43,7 +43,7 @@ class Optimised:
         return self.bound is not None and self.breaks.total <= self.bound
 
 
-def division_teams(league: League) -> dict[str | None, list[str]]:
+def teams_by_division(league: League) -> dict[str | None, list[str]]:
     """Division -> its teams in the order LeagueGrid generated their pairings (Teams sheet)."""
     out: dict[str | None, list[str]] = {}
     for name, team in league.teams.items():
@@ -63,7 +63,7 @@ def breaks_bound(league: League, rounds: int) -> int | None:
             met = pairs.setdefault(f.division, {})
             key = frozenset((f.home, f.away))
             met[key] = met.get(key, 0) + 1
-    for division, teams in division_teams(league).items():
+    for division, teams in teams_by_division(league).items():
         n = len(teams)
         met = pairs.get(division, {})
         if n < 2 or len(met) != n * (n - 1) // 2 or set(met.values()) != {legs}:
@@ -80,7 +80,7 @@ def timetable_start(league: League, rounds: int) -> dict[str, int] | None:
     the fixtures are not LeagueGrid's generated ones or do not fit `rounds`."""
     if any(f.row is not None for f in league.fixtures):
         return None
-    teams = division_teams(league)
+    teams = teams_by_division(league)
     by_division: dict[str | None, list[list[str]]] = {}
     for f in league.fixtures:
         legs = by_division.setdefault(f.division, [[], []])
@@ -155,12 +155,13 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
         trial = {**current, **moved}
         if model.generator.active and check_generator(league, model.generator, trial, rounds):
             continue
-        new = count_breaks(league, trial).total
+        counted = count_breaks(league, trial)
+        new = counted.total
         heat = 2.0 * (1 - step / steps) + 0.05
         if new <= cost or rng.random() < math.exp((cost - new) / heat):
             current, cost = trial, new
             if new < best_breaks.total:
-                best, best_breaks = dict(trial), count_breaks(league, trial)
+                best, best_breaks = trial, counted
     return Optimised(best, best_breaks, bound, origin, done, stopped)
 
 
