@@ -115,7 +115,8 @@ def make_schedule(league: League, graph: nx.Graph, rounds: int, seed: int | None
 RULE_OF = {"clashes": "clash", "splits": "split", "ties": "tie", "pins": "pin",
            "played": "played", "blocked": "blocked", "return half": "return half",
            "venue capacity": "capacity", "max home run": "home run",
-           "max away run": "away run", "round balance": "balance"}
+           "max away run": "away run", "round balance": "balance", "leg gap": "leg gap",
+           "mirrored return half": "mirrored", "byes apart": "byes"}
 
 
 def rules_met(league: League, graph: nx.Graph, schedule: Schedule) -> list[tuple[str, bool]]:

@@ -164,6 +164,9 @@ class Settings:
     max_away_run: int | None = None
     round_balance: int | None = None
     return_half: bool = False
+    mirrored: bool = False  # Return half = mirrored: round H + r repeats round r, sides swapped
+    leg_gap: int | None = None  # a pairing's two meetings at least this many rounds apart
+    byes_apart: bool = True  # no team has byes in two rounds in a row (matchday round robins)
 
 
 @dataclass

@@ -13,7 +13,7 @@ from __future__ import annotations
 
 import random
 import secrets
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from typing import Literal
 
 import networkx as nx
@@ -90,6 +90,25 @@ def plan(
     generated timetable), is taken instead of any draw; the count is still made."""
     job = hooks or engine.Hooks()
     model = build_model(league, graph, rounds)
+    result = _plan(league, model, seed, draws, terms, job, rule_draws, given)
+    if result.status != "impossible" or not model.generator.byes_apart:
+        return result
+    # byes apart holds wherever the rounds allow it: when they do not, plan without it
+    model.generator = replace(model.generator, byes_apart=False)
+    model.rules_generator = model.generator.describe()
+    relaxed = _plan(league, model, seed, draws, terms, job, rule_draws, given)
+    if relaxed.schedule is not None:
+        relaxed.schedule.notes.append(
+            f"byes apart: no schedule in {plural(rounds, 'round')} keeps every team's byes "
+            "apart, so some team has byes in two rounds in a row")
+    return relaxed
+
+
+def _plan(league: League, model: CountingModel, seed: int, draws: int,
+          terms: dict[str, float] | None, job: engine.Hooks, rule_draws: int,
+          given: dict[str, int] | None) -> PlanResult:
+    """plan() on a counting model already built."""
+    rounds = model.rounds
     result = PlanResult("impossible", seed, model=model)
     if model.contradictions:
         result.reasons = list(model.contradictions)
@@ -134,8 +153,8 @@ def plan(
     result.draws_met = len(kept)
     if rules.active:
         notes.append(f"{len(kept)} of {result.draws} draws met every rule")
-    if kept:
-        return _finish(result, league, model, kept, "uniform", terms, notes)
+    if kept:  # the best of as many as were asked for, though more were drawn to meet the rules
+        return _finish(result, league, model, kept[:draws], "uniform", terms, notes)
     notes.append("no uniform draw met every rule")
     return _by_search(result, league, model, seed, draws, terms, job, notes)
 

@@ -20,7 +20,7 @@ from leaguegrid import engine
 from leaguegrid.core.model import League
 from leaguegrid.scheduling.breaks import BreakCount, break_lower_bound, count_breaks
 from leaguegrid.scheduling.constraints import CountingModel
-from leaguegrid.scheduling.rules import check_generator
+from leaguegrid.scheduling.rules import check_generator, round_robins
 
 STEPS = 4000  # local-search steps (each one Kempe-chain move tried)
 CHECK_EVERY = 64  # steps between budget and cancel checks
@@ -43,32 +43,19 @@ class Optimised:
         return self.bound is not None and self.breaks.total <= self.bound
 
 
-def teams_by_division(league: League) -> dict[str | None, list[str]]:
-    """Division -> its teams in the order LeagueGrid generated their pairings (Teams sheet)."""
-    out: dict[str | None, list[str]] = {}
-    for name, team in league.teams.items():
-        out.setdefault(team.division, []).append(name)
-    return out
-
-
 def breaks_bound(league: League, rounds: int) -> int | None:
     """The sum over divisions of the published lower bounds on breaks, when every division is
     a complete round robin played compactly in `rounds`; None when no bound is known."""
-    legs = league.settings.legs
-    style = "single" if legs == 1 else "halves" if league.settings.return_half else "double"
+    divisions = round_robins(league)
+    if divisions is None:
+        return None
+    s = league.settings
+    style = ("single" if s.legs == 1 else "mirrored" if s.mirrored and s.return_half
+             else "halves" if s.return_half else "double")
     total = 0
-    pairs: dict[str | None, dict[frozenset[str], int]] = {}
-    for f in league.fixtures:
-        if f.home and f.away:
-            met = pairs.setdefault(f.division, {})
-            key = frozenset((f.home, f.away))
-            met[key] = met.get(key, 0) + 1
-    for division, teams in teams_by_division(league).items():
+    for teams in divisions.values():
         n = len(teams)
-        met = pairs.get(division, {})
-        if n < 2 or len(met) != n * (n - 1) // 2 or set(met.values()) != {legs}:
-            return None
-        if rounds != legs * (n - 1 + n % 2):
+        if rounds != s.legs * (n - 1 + n % 2):
             return None
         total += break_lower_bound(n, style, rounds)
     return total
@@ -76,11 +63,12 @@ def breaks_bound(league: League, rounds: int) -> int | None:
 
 def timetable_start(league: League, rounds: int) -> dict[str, int] | None:
     """The generated round robin in its own round order (first legs, then the return legs in
-    reverse order, so each half is a single round robin with the fewest breaks), or None when
-    the fixtures are not LeagueGrid's generated ones or do not fit `rounds`."""
-    if any(f.row is not None for f in league.fixtures):
+    reverse order, so each half is a single round robin with the fewest breaks; in the same
+    order when mirrored), or None when the fixtures are not LeagueGrid's generated ones or do
+    not fit `rounds`."""
+    teams = round_robins(league)
+    if teams is None or any(f.row is not None for f in league.fixtures):
         return None
-    teams = teams_by_division(league)
     by_division: dict[str | None, list[list[str]]] = {}
     for f in league.fixtures:
         legs = by_division.setdefault(f.division, [[], []])
@@ -97,11 +85,12 @@ def timetable_start(league: League, rounds: int) -> dict[str, int] | None:
         if second and len(second) != len(first):
             return None
         half = max(span, (rounds + 1) // 2) if league.settings.return_half else span
+        same_order = n % 2 == 1 or league.settings.mirrored
         for i, label in enumerate(first):
             out[label] = i // per_round + 1
         for i, label in enumerate(second):
             r = i // per_round
-            out[label] = half + (span - r if n % 2 == 0 else r + 1)
+            out[label] = half + (r + 1 if same_order else span - r)
     if max(out.values(), default=0) > rounds:
         return None
     return out
@@ -139,6 +128,10 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
     nodes = sorted(model.graph.nodes)
     members = {v: list(model.members[v]) for v in nodes}
     done, stopped = 0, False
+    rules = model.generator
+    mirror = ({a: b for pair in rules.legs for a, b in (pair, pair[::-1])}
+              if rules.mirrored else {})
+    half = -(-rounds // 2)
     for step in range(steps):
         if bound is not None and best_breaks.total <= bound:
             break
@@ -150,6 +143,8 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
                 break
         done = step + 1
         moved = _kempe_move(model, current, rng.choice(nodes), rng.randint(1, rounds), members)
+        if moved is not None and mirror:
+            moved = _mirrored(model, current, moved, mirror, half, members)
         if moved is None:
             continue
         trial = {**current, **moved}
@@ -163,6 +158,33 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
             if new < best_breaks.total:
                 best, best_breaks = trial, counted
     return Optimised(best, best_breaks, bound, origin, done, stopped)
+
+
+def _mirrored(model: CountingModel, assignment: dict[str, int], moved: dict[str, int],
+              mirror: dict[str, str], half: int, members: dict[str, list[str]]
+              ) -> dict[str, int] | None:
+    """`moved` with each moved fixture's other meeting moved to stay `half` rounds away; None
+    when that lands a fixture on a pinned node, an excluded round or a clash."""
+    out = dict(moved)
+    for label, new in moved.items():
+        other = mirror.get(label)
+        if other is None or other in moved:
+            continue
+        shift = new + half if assignment[other] > assignment[label] else new - half
+        node = model.node_of[other]
+        if node in model.pins or shift in model.exclusions.get(node, ()):
+            return None
+        if not 1 <= shift <= model.rounds:
+            return None
+        for lab in members[node]:
+            out[lab] = shift
+    extra = {model.node_of[lab] for lab in out if lab not in moved}
+    for node in extra:
+        r = out[members[node][0]]
+        for w in model.graph[node]:
+            if out.get(members[w][0], assignment[members[w][0]]) == r:
+                return None
+    return out
 
 
 def _kempe_move(model: CountingModel, assignment: dict[str, int], node: str, target: int,

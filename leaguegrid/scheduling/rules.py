@@ -7,7 +7,15 @@
   more than that many home (away) fixtures in a row; a round without a fixture for the team (a
   bye) neither breaks nor extends a run;
 - round balance: over all K rounds, empty ones included, the fullest and emptiest round differ
-  by at most that many fixtures.
+  by at most that many fixtures;
+- leg gap: the two meetings of a pairing (first leg and return) lie at least that many rounds
+  apart;
+- mirrored (Return half = mirrored): with H = ceil(K/2), each return fixture is played in round
+  H + r when its first leg is in round r;
+- byes apart (Settings `Byes apart`, yes unless it says no): in a league of round robins played
+  on matchdays (rounds that are not time slots of one day), no team has byes (rounds without a
+  game) in two rounds in a row, for every team with few enough byes for that (byes <= games
+  + 1).
 Each rule checks a complete schedule, and `prove_impossible` finds the cases where counting
 alone proves that no schedule can meet it, naming where it bites.
 """
@@ -19,6 +27,8 @@ from dataclasses import dataclass
 
 from leaguegrid.core.model import League
 from leaguegrid.core.names import name_key
+from leaguegrid.core.wording import plural
+from leaguegrid.scheduling.breaks import team_byes
 
 
 @dataclass(frozen=True)
@@ -53,10 +63,15 @@ class GeneratorRules:
     max_home_run: int | None = None
     max_away_run: int | None = None
     round_balance: int | None = None
+    leg_gap: int | None = None
+    mirrored: bool = False
+    legs: tuple[tuple[str, str], ...] = ()  # (first leg, return) labels, for gap and mirror
+    byes_apart: bool = False
 
     @property
     def names(self) -> list[str]:
-        """Short names of the active rules: capacity, home run, away run, balance."""
+        """Short names of the active rules: capacity, home run, away run, balance, leg gap,
+        mirrored, byes."""
         out = []
         if self.capacities:
             out.append("capacity")
@@ -66,13 +81,20 @@ class GeneratorRules:
             out.append("away run")
         if self.round_balance is not None:
             out.append("balance")
+        if self.leg_gap is not None and self.legs:
+            out.append("leg gap")
+        if self.mirrored and self.legs:
+            out.append("mirrored")
+        if self.byes_apart:
+            out.append("byes")
         return out
 
     @staticmethod
     def title(name: str) -> str:
         """The rule's name as a coordinator reads it: "capacity" -> "venue capacity"."""
         return {"capacity": "venue capacity", "home run": "max home run",
-                "away run": "max away run", "balance": "round balance"}[name]
+                "away run": "max away run", "balance": "round balance", "leg gap": "leg gap",
+                "mirrored": "mirrored return half", "byes": "byes apart"}[name]
 
     @property
     def active(self) -> bool:
@@ -85,6 +107,10 @@ class GeneratorRules:
             max_home_run=self.max_home_run if name == "home run" else None,
             max_away_run=self.max_away_run if name == "away run" else None,
             round_balance=self.round_balance if name == "balance" else None,
+            leg_gap=self.leg_gap if name == "leg gap" else None,
+            mirrored=self.mirrored and name == "mirrored",
+            legs=self.legs,
+            byes_apart=self.byes_apart and name == "byes",
         )
 
     def describe(self) -> list[str]:
@@ -106,6 +132,14 @@ class GeneratorRules:
             out.append(
                 f"round balance: fixtures per round differ by at most {self.round_balance}"
             )
+        if "leg gap" in self.names:
+            out.append(f"leg gap: a pairing's two meetings are at least "
+                       f"{plural(self.leg_gap or 0, 'round')} apart")
+        if "mirrored" in self.names:
+            out.append("mirrored return half: with H rounds in the first half, round H + r "
+                       "repeats round r's pairings with home and away swapped")
+        if self.byes_apart:
+            out.append("byes apart: no team has byes in two rounds in a row")
         return out
 
 
@@ -121,12 +155,57 @@ def generator_rules(league: League) -> GeneratorRules:
             at = [f for f in league.fixtures if name_key(f.venue) == name_key(venue.name)]
             if at and not all(f.pitch for f in at):
                 caps.append(Capacity(venue.name, venue.pitches, tuple(f.label for f in at)))
+    legs = leg_pairs(league) if s.legs == 2 and (s.leg_gap or s.mirrored) else ()
     return GeneratorRules(
         capacities=tuple(caps),
         max_home_run=s.max_home_run,
         max_away_run=s.max_away_run,
         round_balance=s.round_balance,
+        leg_gap=s.leg_gap,
+        mirrored=s.mirrored and s.return_half,
+        legs=tuple(legs),
+        byes_apart=(s.byes_apart and round_robins(league) is not None
+                    and not any(info.time for info in league.rounds)),
     )
+
+
+def leg_pairs(league: League) -> list[tuple[str, str]]:
+    """(first leg, return) fixture labels: the meetings of one pair of teams, leg 1 with leg 2
+    (and leg 2 with leg 3, ...)."""
+    meetings: dict[frozenset[str], dict[int, str]] = defaultdict(dict)
+    for f in league.fixtures:
+        if f.home and f.away:
+            meetings[frozenset((f.home, f.away))].setdefault(f.leg, f.label)
+    out = []
+    for legs in meetings.values():
+        for leg in sorted(legs):
+            if leg + 1 in legs:
+                out.append((legs[leg], legs[leg + 1]))
+    return out
+
+
+def round_robins(league: League) -> dict[str | None, list[str]] | None:
+    """Division -> its teams (in Teams order) when every division is a complete round robin
+    (each pair of its teams meets Legs times, and only its teams play in it); else None."""
+    teams: dict[str | None, list[str]] = {}
+    for name, team in league.teams.items():
+        teams.setdefault(team.division, []).append(name)
+    met: dict[str | None, dict[frozenset[str], int]] = {}
+    for f in league.fixtures:
+        if not (f.home and f.away) or f.division not in teams:
+            return None
+        key = frozenset((f.home, f.away))
+        if not key <= set(teams[f.division]):
+            return None
+        pairs = met.setdefault(f.division, {})
+        pairs[key] = pairs.get(key, 0) + 1
+    legs = league.settings.legs
+    for division, members in teams.items():
+        n = len(members)
+        pairs = met.get(division, {})
+        if n < 2 or len(pairs) != n * (n - 1) // 2 or set(pairs.values()) != {legs}:
+            return None
+    return teams if teams else None
 
 
 def team_sides(league: League) -> dict[str, list[tuple[str, str]]]:
@@ -232,6 +311,43 @@ def check_balance(
     ]
 
 
+def check_legs(rules: GeneratorRules, assignment: dict[str, int], rounds: int
+               ) -> list[Violation]:
+    """Pairings whose return is closer than the leg gap, or not mirrored H rounds later."""
+    out = []
+    gap, half = rules.leg_gap, -(-rounds // 2)
+    for first, back in rules.legs:
+        if first not in assignment or back not in assignment:
+            continue
+        a, b = assignment[first], assignment[back]
+        if gap is not None and abs(b - a) < gap:
+            out.append(Violation(
+                "leg gap", f"{first} (round {a}) and its return {back} (round {b}) are "
+                f"{plural(abs(b - a), 'round')} apart; Leg gap is {gap}", (first, back), (a, b)))
+        if rules.mirrored and b != a + half:
+            out.append(Violation(
+                "mirrored", f"{back} is in round {b}, but mirrored it repeats round {a} "
+                f"({first}) in round {a + half}", (first, back), (a, b)))
+    return out
+
+
+def check_byes(league: League, rules: GeneratorRules, assignment: dict[str, int],
+               rounds: int) -> list[Violation]:
+    """Teams with byes in two rounds in a row, where their byes could be kept apart."""
+    if not rules.byes_apart or len(assignment) < len(league.fixtures):
+        return []
+    out = []
+    for team, byes in team_byes(league, assignment, rounds).items():
+        if len(byes) > rounds - len(byes) + 1:
+            continue  # more byes than games + 1: some two must be next to each other
+        close = [r for r in byes if r + 1 in byes]
+        if close:
+            r = close[0]
+            out.append(Violation("byes", f"team {team} has byes in rounds {r} and {r + 1}",
+                                 (), (r, r + 1)))
+    return out
+
+
 def check_generator(
     league: League, rules: GeneratorRules, assignment: dict[str, int], rounds: int
 ) -> list[Violation]:
@@ -240,6 +356,8 @@ def check_generator(
         check_capacity(rules, assignment)
         + check_runs(league, rules, assignment)
         + check_balance(rules, assignment, rounds)
+        + check_legs(rules, assignment, rounds)
+        + check_byes(league, rules, assignment, rounds)
     )
 
 
@@ -299,6 +417,28 @@ def prove_impossible(
                 )
     if rules.round_balance is not None:
         out.extend(_prove_balance(rules.round_balance, domains, rounds))
+    out.extend(_prove_legs(rules, domains, rounds))
+    return out
+
+
+def _prove_legs(rules: GeneratorRules, domains: dict[str, set[int]], rounds: int) -> list[str]:
+    """The first pairing whose two meetings cannot keep the leg gap (or the mirror) in the
+    rounds their pins, blocked rounds and Return half leave them."""
+    gap, half = rules.leg_gap, -(-rounds // 2)
+    if gap is not None and rules.legs and gap >= rounds:
+        return [f"leg gap: a pairing's two meetings cannot be {gap} rounds apart in "
+                f"{plural(rounds, 'round')} (at most {rounds - 1})"]
+    out = []
+    for first, back in rules.legs:
+        a, b = domains.get(first, set()), domains.get(back, set())
+        if gap is not None and not any(abs(y - x) >= gap for x in a for y in b):
+            out.append(f"leg gap: {first} and its return {back} cannot be {gap} rounds apart "
+                       "in the rounds left to them")
+            break
+        if rules.mirrored and not any(x + half in b for x in a):
+            out.append(f"mirrored return half: {back} cannot be played {half} rounds after "
+                       f"{first} in the rounds left to them")
+            break
     return out
 
 

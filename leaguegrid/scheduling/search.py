@@ -93,6 +93,26 @@ class _State:
             self.cap_nodes.append(bring)
         self.node_caps = [[ci for ci, b in enumerate(self.cap_nodes) if i in b]
                           for i in range(self.n)]
+        # leg gap and mirror: the other meeting's node, and +1 (return) or -1 (first leg)
+        self.gap, self.half = rules.leg_gap, -(-self.k // 2)
+        self.mirrored = rules.mirrored
+        self.links: list[list[tuple[int, int]]] = [[] for _ in range(self.n)]
+        for first, back in rules.legs:
+            a, b = index[node_of[first]], index[node_of[back]]
+            if a != b:
+                self.links[a].append((b, 1))
+                self.links[b].append((a, -1))
+        # byes apart: each team's nodes, for teams with few enough byes to keep them apart
+        self.bye_teams: list[list[int]] = []
+        self.node_bye_teams: list[list[int]] = [[] for _ in range(self.n)]
+        if rules.byes_apart:
+            for sides in team_sides(model.league).values():
+                nodes = sorted({index[node_of[lab]] for lab, _ in sides})
+                games = len(sides)
+                if self.k - games <= games + 1:
+                    for i in nodes:
+                        self.node_bye_teams[i].append(len(self.bye_teams))
+                    self.bye_teams.append(nodes)
         # round balance
         self.balance = rules.round_balance
         if self.balance is not None and self.k:
@@ -171,6 +191,11 @@ class _State:
         for j in self.adj[i]:
             if not self.val[j] and not self._drop(j, r):
                 return False
+        for j, sign in self.links[i]:
+            if not self.val[j]:
+                for q in [q for q in self.dom[j] if not self._legs_fit(r, q, sign)]:
+                    if not self._drop(j, q):
+                        return False
         for ci in self.node_caps[i]:
             room = self.caps[ci] - self.cap_count[ci][r]
             for j, b in self.cap_nodes[ci].items():
@@ -185,7 +210,31 @@ class _State:
                 return False
         if not self._cliques_hold():
             return False
+        if self.bye_teams and not self._byes_apart_open():
+            return False
         return all(self._runs_open(t) for t in self.node_teams[i])
+
+    def _byes_apart_open(self) -> bool:
+        """False when a team touched by this step is sure to have byes in two rounds in a
+        row: rounds that no game of the team holds or can still take."""
+        for t in {t for j in self.touched for t in self.node_bye_teams[j]}:
+            can = [False] * (self.k + 2)
+            for j in self.bye_teams[t]:
+                if self.val[j]:
+                    can[self.val[j]] = True
+                else:
+                    for q in self.dom[j]:
+                        can[q] = True
+            if any(not can[r] and not can[r + 1] for r in range(1, self.k)):
+                return False
+        return True
+
+    def _legs_fit(self, r: int, q: int, sign: int) -> bool:
+        """Can the other meeting go in round q when this one is in round r (sign +1: q is
+        the return)?"""
+        if self.gap is not None and abs(q - r) < self.gap:
+            return False
+        return not self.mirrored or q == r + sign * self.half
 
     def _cliques_hold(self) -> bool:
         """Pigeonhole on each clash clique (a team's or a pitch's fixtures) touched by this

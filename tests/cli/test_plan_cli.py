@@ -69,6 +69,8 @@ def test_plan_json_holds_the_schedule_its_breaks_and_nothing_else(cli, round_rob
                               "per_team": recount}
     assert data["byes"] == {t: [] for t in sorted(sides)}
     assert data["rules"] == [{"rule": "clashes: 168 pairs of fixtures never share a round",
+                              "met": True},
+                             {"rule": "byes apart: no team has byes in two rounds in a row",
                               "met": True}]
 
 
@@ -205,3 +207,13 @@ def test_whatif_team_joins_and_venue_closes(cli, round_robin) -> None:
     code, _, err = cli("whatif", book, "--rounds", "5", "--close", "Grund A,1")
     assert code == 2
     assert "did you mean 'Ground A'?" in err
+
+
+def test_plan_exits_3_naming_a_leg_gap_the_rounds_cannot_hold(cli, workbook) -> None:
+    teams = [("Team", "Venue")] + [(f"Side {i}", f"Ground {i}") for i in range(4)]
+    book = workbook("gap.xlsx", {"Teams": teams,
+                                 "Settings": [("Setting", "Value"), ("Legs", 2), ("Leg gap", 6)]})
+    code, out, err = cli("plan", str(book), "--rounds", "6", "--seed", "1")
+    assert code == 3
+    assert ("leg gap: a pairing's two meetings cannot be 6 rounds apart in 6 rounds "
+            "(at most 5)") in out + err

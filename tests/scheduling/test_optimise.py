@@ -45,8 +45,10 @@ def checked_breaks(league: League, assignment: dict[str, int], rounds: int) -> i
     return total
 
 
-def teams_league(tmp_path, n: int, legs: int = 1, return_half: bool = False) -> League:
-    """A Teams-only workbook of n teams, each with a ground of its own, read by the reader."""
+def teams_league(tmp_path, n: int, legs: int = 1, return_half: bool | str = False,
+                 **more: object) -> League:
+    """A Teams-only workbook of n teams, each with a ground of its own, read by the reader;
+    `more` adds settings (leg_gap=3 -> "Leg gap" 3)."""
     book = openpyxl.Workbook()
     sheet = book.active
     sheet.title = "Teams"
@@ -57,7 +59,9 @@ def teams_league(tmp_path, n: int, legs: int = 1, return_half: bool = False) -> 
     settings_sheet.append(["Setting", "Value"])
     settings_sheet.append(["Legs", legs])
     if return_half:
-        settings_sheet.append(["Return half", "yes"])
+        settings_sheet.append(["Return half", "yes" if return_half is True else return_half])
+    for name, value in more.items():
+        settings_sheet.append([name.replace("_", " ").capitalize(), value])
     path = tmp_path / f"teams-{n}-{legs}.xlsx"
     book.save(path)
     result = load_league(path)
@@ -156,3 +160,71 @@ def test_clubs_sharing_grounds_across_two_divisions_fit_the_compact_rounds(tmp_p
     league = load_league(path).league
     got = optimised(league, 5)
     assert checked_breaks(league, got.assignment, 5) == got.breaks.total == 8 == got.bound
+
+
+def meetings(league: League, assignment: dict[str, int]) -> dict[frozenset, list[tuple]]:
+    """Pair of teams -> its meetings as (round, home), in round order (checker's own)."""
+    out: dict[frozenset, list[tuple]] = {}
+    for f in league.fixtures:
+        out.setdefault(frozenset((f.home, f.away)), []).append((assignment[f.label], f.home))
+    return {pair: sorted(games) for pair, games in out.items()}
+
+
+@pytest.mark.parametrize("n", [4, 6, 8, 10])
+def test_mirrored_double_round_robin_reaches_3n_minus_6(tmp_path, n):
+    # de Werra 1981: a compact mirrored double round robin of n teams (n even) has at least
+    # 3n - 6 breaks (the junction between the halves counted), and that many can be reached.
+    league = teams_league(tmp_path, n, legs=2, return_half="mirrored")
+    k = 2 * (n - 1)
+    got = optimised(league, k)
+    assert checked_breaks(league, got.assignment, k) == got.breaks.total == 3 * n - 6
+    assert got.bound == 3 * n - 6 and got.optimal
+    for (r1, home1), (r2, home2) in meetings(league, got.assignment).values():
+        assert r2 == r1 + (n - 1) and home1 != home2  # round H + r repeats round r, swapped
+
+
+@pytest.mark.parametrize("n", [5, 7])
+def test_odd_mirrored_double_round_robin_reaches_n(tmp_path, n):
+    # de Werra 1981: n odd, a mirrored double round robin in 2n rounds needs n breaks.
+    league = teams_league(tmp_path, n, legs=2, return_half="mirrored")
+    got = optimised(league, 2 * n)
+    assert checked_breaks(league, got.assignment, 2 * n) == got.breaks.total == n == got.bound
+
+
+def plan_made(league: League, rounds: int, seed: int = 3):
+    from leaguegrid.app.planning import make_schedule
+
+    return make_schedule(league, build_clash_graph(league), rounds, seed=seed)
+
+
+def test_leg_gap_keeps_every_return_that_many_rounds_after_its_first_meeting(tmp_path):
+    league = teams_league(tmp_path, 6, legs=2, leg_gap=4)
+    outcome = plan_made(league, 10)
+    assert outcome.schedule is not None
+    checked_breaks(league, outcome.schedule.assignment, 10)
+    gaps = [b[0] - a[0] for a, b in meetings(league, outcome.schedule.assignment).values()]
+    assert len(gaps) == 15 and min(gaps) >= 4
+
+
+def test_a_leg_gap_the_rounds_cannot_hold_is_proven_impossible(tmp_path):
+    league = teams_league(tmp_path, 4, legs=2, leg_gap=6)
+    outcome = plan_made(league, 6)
+    assert outcome.schedule is None and outcome.result.status == "impossible"
+    assert outcome.result.reasons == [
+        "leg gap: a pairing's two meetings cannot be 6 rounds apart in 6 rounds (at most 5)"]
+
+
+def test_byes_are_kept_apart_when_the_rounds_allow_it(tmp_path):
+    # 5 teams, single round robin, 7 rounds: 4 games and 3 byes each, so every team's byes
+    # can be kept apart; the uniform draw often puts two side by side.
+    league = teams_league(tmp_path, 5)
+    for seed in range(6):
+        outcome = plan_made(league, 7, seed)
+        assert outcome.schedule is not None
+        played: dict[str, set[int]] = {}
+        for f in league.fixtures:
+            for t in f.teams:
+                played.setdefault(t, set()).add(outcome.schedule.assignment[f.label])
+        for rounds in played.values():
+            byes = set(range(1, 8)) - rounds
+            assert len(byes) == 3 and not any(r + 1 in byes for r in byes)

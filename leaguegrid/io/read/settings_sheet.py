@@ -33,6 +33,8 @@ KNOWN_SETTINGS = {
         "Max away run",
         "Round balance",
         "Return half",
+        "Leg gap",
+        "Byes apart",
     )
 }
 NOT_POSITIVE = "not a positive whole number"
@@ -76,10 +78,11 @@ def read_settings(table: Table, report: Report) -> SettingsRead:
         seen[key] = row.number
         if table.raw(row, "value") is not None:
             _apply(key, table, row, out, report)
-    if out.settings.return_half and out.settings.legs != 2:
-        report.warn(
-            "Return half has no effect unless Legs is 2", out.legs_place or table.sheet_place()
-        )
+    for name, on in (("Return half", out.settings.return_half),
+                     ("Leg gap", out.settings.leg_gap is not None)):
+        if on and out.settings.legs != 2:
+            report.warn(f"{name} has no effect unless Legs is 2",
+                        out.legs_place or table.sheet_place())
     return out
 
 
@@ -129,11 +132,24 @@ def _apply(key: str, table: Table, row: Row, out: SettingsRead, report: Report) 
         else:
             out.settings = replace(s, round_balance=balance)
     elif key == "returnhalf":
+        mirrored = name_key(cell_text(value) or "") == "mirrored"
+        answer = True if mirrored else yes_no(value)
+        if answer is None:
+            report.error("not yes, no or mirrored", place)
+        else:
+            out.settings = replace(s, return_half=answer, mirrored=mirrored)
+    elif key == "byesapart":
         answer = yes_no(value)
         if answer is None:
             report.error("not yes or no", place)
         else:
-            out.settings = replace(s, return_half=answer)
+            out.settings = replace(s, byes_apart=answer)
+    elif key == "leggap":
+        gap = whole_number(value)
+        if gap is None or gap < 1:
+            report.error(f"{NOT_POSITIVE} of rounds", place)
+        else:
+            out.settings = replace(s, leg_gap=gap)
 
 
 def _skip_dates(value: object, place: Place, report: Report) -> tuple:

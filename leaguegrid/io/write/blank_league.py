@@ -59,7 +59,8 @@ SHEETS: list[tuple[str, dict[str, str], list[dict[str, object]], str]] = [
         {"setting": "League", "value": "Example league"},
         {"setting": "Time zone", "value": "Europe/London"},
     ], "League name, Time zone, Legs, Start date, Every, Skip, Shared, Max home run, "
-       "Max away run, Round balance, Return half: see the workbook format guide."),
+       "Max away run, Round balance, Return half (yes, no or mirrored), Leg gap, Byes apart: "
+       "see the workbook format guide."),
     ("Ties", PAIR_COLUMNS, [
         {"first": "Reds v Blues", "second": "Greens v Golds", "reason": "same day (example)"},
         {"first": "Blues v Reds", "second": "Golds v Greens", "reason": "same day (example)"},

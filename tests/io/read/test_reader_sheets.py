@@ -110,7 +110,9 @@ def test_settings_read(tmp_path):
         ["Max home run", 2],
         ["Max away run", "3"],
         ["Round balance", 0],
-        ["Return half", "yes"],
+        ["Return half", "Mirrored"],
+        ["Leg gap", 3],
+        ["Byes apart", "no"],
         ["Legs", 2],
     ]
     result = load_book(tmp_path, {"Teams": [["Team"], ["A"], ["B"]], "Settings": rows})
@@ -127,8 +129,23 @@ def test_settings_read(tmp_path):
         max_away_run=3,
         round_balance=0,
         return_half=True,
+        mirrored=True,
+        leg_gap=3,
+        byes_apart=False,
     )
     assert result.league.name == "Moorside Juniors"
+
+
+def test_leg_gap_must_be_a_positive_whole_number_and_needs_two_legs(tmp_path):
+    rows = [["Setting", "Value"], ["Leg gap", 0], ["Return half", "halfway"]]
+    result = load_book(tmp_path, {"Teams": [["Team"], ["A"], ["B"]], "Settings": rows})
+    assert [(p.message, p.row, p.value) for p in result.problems] == [
+        ("not a positive whole number of rounds", 2, "0"),
+        ("not yes, no or mirrored", 3, "halfway"),
+    ]
+    rows = [["Setting", "Value"], ["Leg gap", 2]]
+    result = load_book(tmp_path, {"Teams": [["Team"], ["A"], ["B"]], "Settings": rows})
+    assert [p.message for p in result.problems] == ["Leg gap has no effect unless Legs is 2"]
 
 
 def test_league_name_defaults_to_the_file_stem(tmp_path):
@@ -168,7 +185,7 @@ def test_settings_problems(tmp_path):
         ),
         ("error", "not a positive whole number", ("Settings", 7, "Value", "0")),
         ("error", "not a whole number (0 or more)", ("Settings", 8, "Value", "-1")),
-        ("error", "not yes or no", ("Settings", 9, "Value", "perhaps")),
+        ("error", "not yes, no or mirrored", ("Settings", 9, "Value", "perhaps")),
         (
             "warning",
             "not a setting LeagueGrid knows; it is ignored; did you mean 'Legs'?",
