@@ -67,8 +67,9 @@ def seat_teams(divisions: Sequence[Sequence[str]],
                ground: dict[str, str | None]) -> list[list[str]]:
     """Each division's teams in the order of their places in the timetable, so that teams
     sharing a ground get complementary places: within a division, and across divisions of the
-    same size (which play their rounds side by side). Otherwise sheet order."""
-    taken: dict[tuple[str, int], int] = {}  # (ground, division size) -> a place used there
+    same size (which play their rounds side by side), the third on a ground back on the first's
+    place, so a ground of two pitches holds four such teams. Otherwise sheet order."""
+    taken: dict[tuple[str, int], list[int]] = {}  # (ground, size) -> places used there
     out = []
     for members in divisions:
         n = len(members)
@@ -77,7 +78,10 @@ def seat_teams(divisions: Sequence[Sequence[str]],
         left = list(members)
         for name in members:  # the ground is used by an earlier division of the same size
             g = ground.get(name)
-            want = mate.get(taken.get((g, n), -1)) if g else None
+            used = taken.get((g, n), []) if g else []
+            # alternate: the second team on a ground gets the first's mate, the third the
+            # first's place again, so at most half (rounded up) are at home in any round
+            want = (mate.get(used[0]) if len(used) % 2 else used[0]) if used else None
             if want is not None and want not in seat:
                 seat[want] = name
                 left.remove(name)
@@ -97,6 +101,6 @@ def seat_teams(divisions: Sequence[Sequence[str]],
         order = [seat[s] for s in range(n)]
         for s, name in enumerate(order):
             if ground.get(name):
-                taken.setdefault((ground[name], n), s)
+                taken.setdefault((ground[name], n), []).append(s)
         out.append(order)
     return out

@@ -165,3 +165,15 @@ def test_teams_sharing_a_ground_are_seated_as_partners_within_and_across_divisio
     for old, new in (("Ash", "Ash 14"), ("Beech", "Beech 14")):
         assert frozenset((first.index(old), second.index(new))) in mates
     assert seat_teams([under12], {}) == [under12]  # nothing shared: sheet order
+
+
+def test_four_divisions_on_one_ground_of_two_pitches_have_at_most_two_at_home():
+    # A club with a team in each of four 8-team divisions on one ground: seated alternately
+    # on a place and its partner, two of them are at home in every round, never three.
+    divisions = [[f"Club {d}"] + [f"Other {d}{i}" for i in range(7)] for d in range(4)]
+    ground = {f"Club {d}": "Club ground" for d in range(4)}
+    seated = seat_teams(divisions, ground)
+    rounds = single_round_robin(8)
+    home = [sum(_pattern(rounds, order.index(f"Club {d}"))[r] == "H"
+                for d, order in enumerate(seated)) for r in range(7)]
+    assert home == [2] * 7
