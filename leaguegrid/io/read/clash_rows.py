@@ -15,7 +15,7 @@ from leaguegrid.io.read.problems import Place
 
 PAIR_COLUMNS = {"first": "First", "second": "Second", "reason": "Reason"}
 KINDS = ("fixture", "team", "venue")
-_QUALIFIED = re.compile(r"\s*(fixture|team|venue)\s*:\s*(.*)", re.IGNORECASE | re.DOTALL)
+QUALIFIED = re.compile(r"\s*(fixture|team|venue)\s*:\s*(.*)", re.IGNORECASE | re.DOTALL)
 
 
 @dataclass(frozen=True)
@@ -48,7 +48,7 @@ class Resolver:
     def resolve(self, text: str, place: Place, kinds: tuple[str, ...] = KINDS) -> Target | None:
         """The target a cell names, or None after reporting why it names nothing usable."""
         report = self.ctx.report
-        if match := _QUALIFIED.fullmatch(text):
+        if match := QUALIFIED.fullmatch(text):
             kind, name = match[1].casefold(), match[2].strip()
             if not name:
                 report.error(f"no name follows '{match[1]}:'", place)

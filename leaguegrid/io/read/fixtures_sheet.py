@@ -8,6 +8,7 @@ from dataclasses import dataclass, field
 from leaguegrid.core.model import Fixture
 from leaguegrid.core.names import name_key
 from leaguegrid.core.round_robin import pairings, seat_teams
+from leaguegrid.core.seating import Grounds, Season, seat_for_grounds
 from leaguegrid.io.read.columns import Row, Table, require
 from leaguegrid.io.read.context import ReadContext
 from leaguegrid.io.read.problems import Place
@@ -75,16 +76,21 @@ def read_teams(table: Table, ctx: ReadContext) -> TeamsRead:
     return out
 
 
-def generate_fixtures(teams: TeamsRead, ctx: ReadContext) -> list[Fixture]:
+def generate_fixtures(teams: TeamsRead, ctx: ReadContext, grounds: Grounds) -> list[Fixture]:
     """A single round-robin inside each division (teams with no division form one group), in
-    the timetable's order with its home sides, teams sharing a ground seated on complementary
-    home-away patterns; with Legs = 2 the return fixtures follow, home and away swapped."""
+    the timetable's order with its home sides, teams seated to fit their `grounds` (pitches,
+    closed rounds, grounds kept apart); with Legs = 2 the return fixtures follow, home and
+    away swapped."""
     groups: dict[str | None, list[str]] = {}
     for name in teams.order:
         groups.setdefault(ctx.teams[name].division, []).append(name)
     ground = {name: name_key(team.venue) if team.venue else None
               for name, team in ctx.teams.items()}
-    seated = seat_teams(list(groups.values()), ground)
+    if "venue" in {name_key(c) for c in ctx.settings.shared}:
+        season = Season(ctx.settings.legs, ctx.settings.mirrored and ctx.settings.return_half)
+        seated = seat_for_grounds(list(groups.values()), ground, grounds, season)
+    else:  # grounds do not clash: any seating fits them
+        seated = seat_teams(list(groups.values()), ground)
     first: list[Fixture] = []
     for (division, _), members in zip(groups.items(), seated, strict=True):
         if len(members) < 2:

@@ -29,6 +29,7 @@ from leaguegrid.io.read.fixtures_sheet import (
     read_fixtures,
     read_teams,
 )
+from leaguegrid.io.read.ground_limits import ground_limits
 from leaguegrid.io.read.problems import Place, Report
 from leaguegrid.io.read.rounds_sheet import ROUNDS_COLUMNS, RoundLookup, read_rounds
 from leaguegrid.io.read.rules_sheets import (
@@ -191,7 +192,8 @@ def _build(
         complete_from_teams(fixtures, ctx)
         _after_sheet_fixtures(fixtures, teams, ctx)
     else:
-        fixtures = generate_fixtures(teams, ctx)
+        limits = ground_limits(ctx, tables.get("blocked"), tables.get("clashes"))
+        fixtures = generate_fixtures(teams, ctx, limits)
     ctx.fixtures = fixtures
     league = League(
         name=ctx.settings.league or path.stem,

@@ -149,7 +149,7 @@ def read_blocked(table: Table, resolver: Resolver) -> list[Blocked]:
     out = []
     for row in table.rows:
         whom = _whom(table, row, resolver)
-        rounds = _blocked_rounds(table, row, ctx)
+        rounds = blocked_rounds(table, row, ctx)
         if whom is None or rounds is None:
             continue
         reason = table.text(row, "reason") or ""
@@ -177,7 +177,7 @@ def _whom(table: Table, row: Row, resolver: Resolver) -> list[tuple[str, str]] |
     return None if failed or not found else found
 
 
-def _blocked_rounds(table: Table, row: Row, ctx: ReadContext) -> list[int] | None:
+def blocked_rounds(table: Table, row: Row, ctx: ReadContext) -> list[int] | None:
     """The rounds a Blocked row covers: its Round (number or date), or every round on its Date."""
     report = ctx.report
     by_round, by_date = table.raw(row, "round"), table.raw(row, "date")
