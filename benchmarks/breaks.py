@@ -5,7 +5,9 @@
 Families (invented leagues, written as workbooks and read by the reader, as a coordinator's
 would be): single round robins of 6-30 teams (n even, n - 1 rounds; bound n - 2, de Werra
 1981), odd counts with byes (n rounds; bound 0), double round robins with a return half
-(2n - 2 rounds; bound 2n - 4), two divisions whose clubs share grounds, and round robins
+(2n - 2 rounds; bound 2n - 4), mirrored double round robins (bound 3n - 6; n odd: n), two
+divisions whose clubs share grounds, the association season of the demo leagues (8 divisions
+of 10, return half, shared grounds, blocked dates, clashes; bound 8 x 16), and round robins
 given on a Fixtures sheet (home sides the coordinator's, in a shuffled order, so the generator
 cannot start from its own timetable). Beside each: the breaks of a uniform draw with the same
 seed where the exact count that draws need finishes within the budget, and the seconds.
@@ -23,6 +25,7 @@ import openpyxl
 
 from leaguegrid.app import league as opening
 from leaguegrid.app import planning
+from leaguegrid.app.demos import demo_leagues
 from leaguegrid.core.round_robin import pairings
 from leaguegrid.engine import Hooks, keep_freed_memory
 
@@ -30,7 +33,7 @@ BUDGET = 30.0  # seconds for each plan
 
 
 def teams_book(folder: Path, name: str, divisions: list[list[tuple[str, str]]],
-               legs: int = 1, return_half: bool = False) -> Path:
+               legs: int = 1, return_half: bool | str = False) -> Path:
     """A Teams-only workbook: each division a list of (team, ground)."""
     book = openpyxl.Workbook()
     sheet = book.active
@@ -44,7 +47,7 @@ def teams_book(folder: Path, name: str, divisions: list[list[tuple[str, str]]],
     settings.append(["Legs", legs])
     settings.append(["Start date", "2027-03-06"])
     if return_half:
-        settings.append(["Return half", "yes"])
+        settings.append(["Return half", "yes" if return_half is True else return_half])
     path = folder / f"{name}.xlsx"
     book.save(path)
     return path
@@ -79,6 +82,14 @@ def families(folder: Path, quick: bool) -> list[tuple[str, Path, int]]:
         sides = [(f"Side {i + 1}", f"Ground {i + 1}") for i in range(n)]
         path = teams_book(folder, f"double-{n}", [sides], legs=2, return_half=True)
         out.append((f"double, return half, {n} teams", path, 2 * n - 2))
+    for n in (range(6, 13, 2) if quick else range(6, 31, 4)):
+        sides = [(f"Side {i + 1}", f"Ground {i + 1}") for i in range(n)]
+        path = teams_book(folder, f"mirrored-{n}", [sides], legs=2, return_half="mirrored")
+        out.append((f"double, mirrored, {n} teams", path, 2 * n - 2))
+    for n in (5, 9):
+        sides = [(f"Side {i + 1}", f"Ground {i + 1}") for i in range(n)]
+        path = teams_book(folder, f"mirrored-{n}", [sides], legs=2, return_half="mirrored")
+        out.append((f"double, mirrored, {n} teams (byes)", path, 2 * n))
     for n in (6, 8, 10):
         a = [(f"Club {i} A", f"Ground {i}") for i in range(n)]
         b = [(f"Club {i} B", f"Ground {i}" if i < n // 2 else f"Field {i}") for i in range(n)]
@@ -87,6 +98,8 @@ def families(folder: Path, quick: bool) -> list[tuple[str, Path, int]]:
     for n in (6, 8, 10, 12):
         out.append((f"Fixtures sheet, {n} teams", fixtures_book(folder, f"sheet-{n}", n, n),
                     n - 1))
+    association = next(p for p in demo_leagues() if p.name == "association.xlsx")
+    out.append(("association season (demo, 720 fixtures)", association, 18))
     return out
 
 

@@ -12,6 +12,11 @@ The content is fixed (no randomness), so rebuilding gives the same sheets and ce
                   from the Teams sheet, dates from Start date, Every and Skip.
 - bigseason.xlsx  a ten-team division playing home and away (90 fixtures), two teams sharing a
                   ground: its full polynomial is beyond exact reach, so counts are estimates.
+- association.xlsx  an association's season: eight divisions of ten teams, home and away with
+                  a return half (720 fixtures); clubs with teams in several divisions share
+                  grounds of two or three pitches, two clubs field two teams in one division on
+                  a one-pitch ground, neighbouring grounds share a car park (Clashes), grounds
+                  are let out on some dates (Blocked), holidays are skipped.
 - schedules.xlsx  the schedule rules: played fixtures, ties, splits, blocked rounds, a ground
                   with two pitches, distances, home and away runs, return half.
 """
@@ -240,6 +245,88 @@ def bigseason() -> Workbook:
     return wb
 
 
+# --- association.xlsx ------------------------------------------------------------------------
+
+ASSOCIATION_DIVISIONS = ["U9", "U10", "U11", "U12", "U13", "U14", "U15", "U16"]
+# big clubs: ground, pitches, divisions they field a team in
+ASSOCIATION_CLUBS = [
+    ("Brambleford", "Brambleford Park", 3, ["U9", "U10", "U11", "U12", "U13", "U14"]),
+    ("Coldwhistle", "Coldwhistle Fields", 3, ["U9", "U10", "U11", "U13", "U15", "U16"]),
+    ("Dunmarrow", "Dunmarrow Rec", 2, ["U9", "U11", "U12", "U14"]),
+    ("Elvesham", "Elvesham Meadows", 2, ["U10", "U12", "U14", "U16"]),
+    ("Fallowmist Vale", "Vale Lane", 2, ["U9", "U13", "U15", "U16"]),
+    ("Greywether", "Greywether Green", 2, ["U10", "U11", "U15", "U16"]),
+    ("Hartsgrove", "Hartsgrove Common", 2, ["U12", "U13", "U14"]),
+    ("Ivelbrook Lea", "Lea Road", 2, ["U11", "U14", "U15"]),
+]
+# clubs with two teams in one division sharing a one-pitch ground
+ASSOCIATION_TWINS = [("Juniperwold", "Juniperwold Field", "U12"),
+                     ("Kingsfallow", "Kingsfallow Paddock", "U15")]
+ASSOCIATION_SMALL = [  # one team, a ground of its own
+    prefix + suffix
+    for prefix in ("Lark", "Mill", "Nettle", "Oak", "Penny", "Quill", "Red", "Sallow", "Thorn",
+                   "Upper", "Vetch", "Whin", "Yarrow", "Ash", "Birch", "Calder", "Dove",
+                   "East", "Fox", "Gorse", "Hazel")
+    for suffix in ("wold", "sett")
+]
+
+
+def association_teams() -> list[tuple[str, str, str, str]]:
+    """(team, ground, division, club), ten teams in each of the eight divisions."""
+    teams = []
+    for club, ground, _, divisions in ASSOCIATION_CLUBS:
+        teams += [(f"{club} {d}", ground, d, club) for d in divisions]
+    for club, ground, d in ASSOCIATION_TWINS:
+        teams += [(f"{club} {d} {side}", ground, d, club) for side in ("Reds", "Blues")]
+    small = iter(ASSOCIATION_SMALL)
+    for d in ASSOCIATION_DIVISIONS:
+        while sum(1 for t in teams if t[2] == d) < 10:
+            club = next(small)
+            teams.append((f"{club} {d}", f"{club} Ground", d, club))
+    order = {d: i for i, d in enumerate(ASSOCIATION_DIVISIONS)}
+    return sorted(teams, key=lambda t: order[t[2]])
+
+
+def association() -> Workbook:
+    """An association's season: 8 divisions x 10 teams, double round robin with a return
+    half, 18 matchdays from late August with holidays skipped."""
+    teams = association_teams()
+    wb = new_workbook()
+    add_sheet(wb, "Teams", ["Team", "Venue", "Division", "Club"], teams)
+    venues = [(ground, pitches) for _, ground, pitches, _ in ASSOCIATION_CLUBS]
+    venues += [(ground, 1) for _, ground, _ in ASSOCIATION_TWINS]
+    add_sheet(wb, "Venues", ["Venue", "Pitches"], venues)
+    # neighbouring one-team grounds that share a car park: never both in use on one day
+    small_grounds = [t[1] for t in teams if t[3] in ASSOCIATION_SMALL]
+    clashes = [(f"venue: {a}", f"venue: {b}", "shared car park")
+               for a, b in zip(small_grounds[0:24:2], small_grounds[1:24:2], strict=True)]
+    add_sheet(wb, "Clashes", ["First", "Second", "Reason"], clashes)
+    start, every = dt.date(2026, 8, 29), 7
+    skip = [dt.date(2026, 10, 24), dt.date(2026, 12, 19), dt.date(2026, 12, 26),
+            dt.date(2027, 2, 13)]
+    days = []
+    day = start
+    while len(days) < 18:
+        if day not in skip:
+            days.append(day)
+        day += dt.timedelta(days=every)
+    lets = ["cricket week", "village fete", "pitch reseeding", "school sports day",
+            "county cup final", "ground let out"]
+    blocked = [("", small_grounds[24 + i], days[(5 * i + 3) % 18], lets[i % len(lets)])
+               for i in range(12)]
+    add_sheet(wb, "Blocked", ["Team", "Venue", "Date", "Reason"], blocked)
+    add_sheet(wb, "Settings", ["Setting", "Value"], settings_rows(
+        league="Wealdmoor Junior Football Association",
+        start_date=start,
+        every=every,
+        skip=", ".join(d.isoformat() for d in skip),
+        legs=2,
+        return_half="yes",
+        time_zone="Europe/London",
+    ))
+    return wb
+
+
 # --- schedules.xlsx --------------------------------------------------------------------------
 
 CUP_TEAMS = ["Kestrelmoor Reds", "Kestrelmoor Blues", "Fernbeck", "Rookham", "Ouselmere",
@@ -355,6 +442,7 @@ DEMOS: dict[str, Callable[[], Workbook]] = {
     "clubday.xlsx": clubday,
     "season.xlsx": season,
     "bigseason.xlsx": bigseason,
+    "association.xlsx": association,
     "schedules.xlsx": schedules,
 }
 

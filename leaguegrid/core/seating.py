@@ -16,7 +16,8 @@ from dataclasses import dataclass, field
 
 from leaguegrid.core.round_robin import seat_teams, single_round_robin
 
-STEPS = 20_000  # swaps tried at most
+STEPS = 4000  # swaps made at most
+NOISE = 0.1  # share of steps that make a random swap instead of the best one
 
 
 @dataclass(frozen=True)
@@ -83,6 +84,8 @@ class _Search:
         self.watched = {g for g, count in at.items() if count > grounds.pitches.get(g, 1)
                         or grounds.closed.get(g) or g in self.partners}
         self.ground = {name: g for name, g in ground.items() if g in self.watched}
+        self.ground = {name: self.ground[name] for order in seated for name in order
+                       if name in self.ground}
         self.patterns = {len(o): season.home_rounds(len(o)) for o in seated if o}
         last = max((r for pats in self.patterns.values() for p in pats for r in p), default=0)
         self.home: dict[str, list[int]] = {g: [0] * (last + 1) for g in self.watched}
@@ -115,30 +118,45 @@ class _Search:
         return out | {p for g in list(out) for p in self.partners.get(g, ())}
 
     def run(self, rng: random.Random) -> None:
-        """Swap two teams of a division (one of them on a watched ground) while conflicts do
-        not rise, now and then accepting a rise, keeping the best seating seen."""
-        movable = [d for d, order in enumerate(self.seated)
-                   if any(n in self.ground for n in order)]
+        """Min-conflicts: take a team on a ground in conflict and make the swap within its
+        division that lowers the conflicts most (ties broken at random; now and then a random
+        swap instead, to leave a local minimum), keeping the best seating seen."""
+        where = {name: (d, order) for d, order in enumerate(self.seated) for name in order}
+        at: dict[str, list[str]] = {}
+        for name, g in self.ground.items():
+            if name in where:
+                at.setdefault(g, []).append(name)
+        cost = {g: self._cost(g) for g in self.watched}
         best, best_cost = [list(o) for o in self.seated], self.conflicts
         for _ in range(STEPS):
             if best_cost == 0:
                 break
-            d = rng.choice(movable)
-            order = self.seated[d]
-            mine = [p for p, n in enumerate(order) if n in self.ground]
-            a, b = rng.choice(mine), rng.randrange(len(order))
-            if a == b:
-                continue
-            touched = self._affected((order[a], order[b]))
-            before = sum(self._cost(g) for g in touched)
-            self._swap(order, a, b)
-            delta = sum(self._cost(g) for g in touched) - before
-            if delta <= 0 or rng.random() < 0.02:
-                self.conflicts += delta
-                if self.conflicts < best_cost:
-                    best, best_cost = [list(o) for o in self.seated], self.conflicts
+            bad = sorted(g for g, c in cost.items() if c)
+            if not bad:
+                break
+            g = rng.choice(bad)
+            g = rng.choice([g, *self.partners.get(g, ())])
+            name = rng.choice(at[g])
+            _, order = where[name]
+            a = order.index(name)
+            if rng.random() < NOISE:
+                choices = [rng.choice([b for b in range(len(order)) if b != a])]
             else:
+                choices = [b for b in range(len(order)) if b != a]
+            scored = []
+            for b in choices:
+                touched = self._affected((order[a], order[b]))
+                before = sum(cost[t] for t in touched)
                 self._swap(order, a, b)
+                after = {t: self._cost(t) for t in touched}
+                self._swap(order, a, b)
+                scored.append((sum(after.values()) - before, rng.random(), b, after))
+            delta, _, b, after = min(scored)
+            self._swap(order, a, b)
+            cost.update(after)
+            self.conflicts += delta
+            if self.conflicts < best_cost:
+                best, best_cost = [list(o) for o in self.seated], self.conflicts
         self.seated, self.conflicts = best, best_cost
 
     def _swap(self, order: list[str], a: int, b: int) -> None:
