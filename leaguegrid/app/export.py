@@ -11,11 +11,14 @@ import networkx as nx
 
 from leaguegrid.core.dated import DatedSchedule, club_teams, natural_key, team_names
 from leaguegrid.core.model import League, Schedule
+from leaguegrid.core.wording import breaks_text
 from leaguegrid.io.write import ics
 from leaguegrid.io.write.atomic import ExportError
 from leaguegrid.io.write.calendar_xlsx import CalendarSummary, write_calendar_xlsx
 from leaguegrid.io.write.csv_out import write_schedule_csv
+from leaguegrid.scheduling.breaks import count_breaks
 from leaguegrid.scheduling.dates import DatesError, date_schedule
+from leaguegrid.scheduling.optimise import breaks_bound
 
 
 @dataclass
@@ -44,9 +47,12 @@ class ExportOutcome:
 
 def summary_for(league: League, graph: nx.Graph, schedule: Schedule,
                 min_rounds: int | None) -> CalendarSummary:
-    """The numbers the calendar's Summary sheet shows beside a schedule."""
+    """The numbers the calendar's Summary sheet shows beside a schedule, its breaks with the
+    published lower bound where one is known."""
+    breaks = count_breaks(league, schedule.assignment).total
+    text = breaks_text(breaks, breaks_bound(league, schedule.rounds)).removeprefix("Breaks: ")
     return CalendarSummary.for_schedule(league, schedule, clashes=graph.number_of_edges(),
-                                        min_rounds=min_rounds)
+                                        min_rounds=min_rounds, breaks=text)
 
 
 def export_schedule(league: League, graph: nx.Graph, schedule: Schedule,

@@ -98,3 +98,11 @@ def test_a_what_if_stopped_by_its_budget_is_marked_incomplete(round_robin) -> No
     hooks = engine.Hooks(budget=0, clock=itertools.count().__next__)
     outcome = what.what_if(opened.league, opened.graph, 3, hooks=hooks)
     assert not outcome.complete
+
+
+def test_the_calendar_summary_gives_the_breaks_against_the_bound(round_robin) -> None:
+    # de Werra 1981: a compact single round robin of 6 teams has at least 4 breaks.
+    opened = league.open_league(round_robin(6))
+    schedule = planning.make_schedule(opened.league, opened.graph, 5, seed=2).schedule
+    summary = export.summary_for(opened.league, opened.graph, schedule, 5)
+    assert summary.breaks == "4 (lower bound 4: optimal)"

@@ -73,6 +73,7 @@ class CalendarSummary:
     notes: list[str] = field(default_factory=list)
     min_rounds_bounds: tuple[int, int] | None = None  # proven bounds when min_rounds is None
     assignments_estimate: str | None = None  # a labelled estimate when the exact count is None
+    breaks: str | None = None  # "8 (lower bound 8: optimal)"
 
     @classmethod
     def for_schedule(
@@ -200,6 +201,10 @@ def _venue_row(row: DatedFixture) -> list[object]:
     return [r.number, r.date, r.time, f.pitch, f.label, f.home, f.away, f.division]
 
 
+GENERATOR_SCOPE = ("breaks, byes, leg gap and the mirrored return half are the schedule "
+                   "generator's objectives and rules; the counts above do not include them")
+
+
 def _summary_rows(league: League, schedule: Schedule, s: CalendarSummary) -> list[list[object]]:
     """The Summary sheet: numbers, rules, seed, notes, caution; clash reasons only counted."""
     if s.min_rounds is not None:
@@ -229,6 +234,9 @@ def _summary_rows(league: League, schedule: Schedule, s: CalendarSummary) -> lis
         ["Schedule made by", method],
         ["Seed", s.seed if s.seed is not None else "none"],
     ]
+    if s.breaks is not None:
+        rows.append(["Breaks (two home or two away games in a row)", s.breaks])
+    rows.append(["Not in the counts", GENERATOR_SCOPE])
     rows += [["Rule met, included in the counts", rule] for rule in s.rules_counted]
     rows += [["Rule met, enforced by the generator only", rule] for rule in s.rules_generator]
     rows += [["Note", note] for note in s.notes]

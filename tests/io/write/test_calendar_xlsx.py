@@ -202,6 +202,9 @@ def test_summary_sheet_rows(tmp_path):
         ("Valid round assignments for 6 rounds (exact)", "12345678901234567890"),
         ("Schedule made by", "drawn uniformly at random from every valid assignment"),
         ("Seed", str(2**70 + 5)),
+        ("Not in the counts", "breaks, byes, leg gap and the mirrored return half are the "
+                              "schedule generator's objectives and rules; the counts above do "
+                              "not include them"),
         ("Rule met, included in the counts", "clashes"),
         ("Rule met, included in the counts", "pins"),
         ("Rule met, enforced by the generator only", "Max home run 2"),
