@@ -9,7 +9,7 @@ import networkx as nx
 from leaguegrid import engine
 from leaguegrid.app.defaults import SCORE_TERMS
 from leaguegrid.core import wording
-from leaguegrid.core.model import League, Schedule
+from leaguegrid.core.model import League, Request, Schedule
 from leaguegrid.scheduling import score
 from leaguegrid.scheduling.breaks import BreakCount, count_breaks, team_byes
 from leaguegrid.scheduling.check import check_schedule
@@ -17,6 +17,7 @@ from leaguegrid.scheduling.constraints import build_model
 from leaguegrid.scheduling.dates import DatesError, round_dates
 from leaguegrid.scheduling.draw import PlanResult, fresh_seed, plan
 from leaguegrid.scheduling.optimise import breaks_bound, fewer_breaks, holds, timetable_start
+from leaguegrid.scheduling.requests import unmet_requests
 from leaguegrid.scheduling.rules import Violation, generator_rules
 
 
@@ -98,6 +99,7 @@ def make_schedule(league: League, graph: nx.Graph, rounds: int, seed: int | None
         return outcome
     if uniform or draws > 1:
         outcome.breaks = count_breaks(league, schedule.assignment)
+        schedule.notes = [*schedule.notes, *request_notes(league, schedule.assignment)]
         return outcome
     better = fewer_breaks(result.model, schedule.assignment, seed, job.part(0.7, 1.0))
     start = (wording.METHODS["timetable"].removeprefix("taken from ")
@@ -109,7 +111,25 @@ def make_schedule(league: League, graph: nx.Graph, rounds: int, seed: int | None
     schedule.notes = [*kept, f"optimised for the fewest breaks from {start}"
                       + (", stopped early at the budget" if better.stopped else "")]
     outcome.breaks = better.breaks
+    schedule.notes = [*schedule.notes, *request_notes(league, schedule.assignment)]
     return outcome
+
+
+def requests_unmet(league: League, schedule: Schedule) -> list[Request]:
+    """The Requests sheet's requests the schedule does not meet."""
+    return unmet_requests(league, schedule.assignment)
+
+
+def request_notes(league: League, assignment: dict[str, int]) -> list[str]:
+    """'requests: 5 of 6 met', then each one not met, with its reason."""
+    if not league.requests:
+        return []
+    unmet = unmet_requests(league, assignment)
+    met = len(league.requests) - len(unmet)
+    out = [f"requests: {met} of {wording.plural(len(league.requests), 'request')} met"]
+    out += [f"request not met: {q}" + (f" ({q.reason})" if q.reason else "")
+            + (f", Requests row {q.row}" if q.row else "") for q in unmet]
+    return out
 
 
 RULE_OF = {"clashes": "clash", "splits": "split", "ties": "tie", "pins": "pin",

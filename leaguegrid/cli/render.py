@@ -11,7 +11,7 @@ import networkx as nx
 
 from leaguegrid.app.counting import CountReport, Number
 from leaguegrid.app.league import OpenedLeague
-from leaguegrid.app.planning import PlanOutcome
+from leaguegrid.app.planning import PlanOutcome, requests_unmet
 from leaguegrid.app.whatif import WhatIfOutcome
 from leaguegrid.core.model import League, Problem
 from leaguegrid.core.wording import (
@@ -213,6 +213,9 @@ def plan_json(outcome: PlanOutcome, league: League, rules: list[tuple[str, bool]
                              "venue": f.venue, "pitch": f.pitch, "division": f.division,
                              "round": row.round.number,
                              "date": row.round.date.isoformat() if row.round.date else None})
+    unmet = [] if schedule is None else requests_unmet(league, schedule)
+    requests = [{"team": q.team, "round": q.round, "side": q.side, "reason": q.reason,
+                 "met": q not in unmet} for q in league.requests] if schedule else []
     breaks = None if outcome.breaks is None else {
         "total": outcome.breaks.total, "lower_bound": outcome.breaks_bound,
         "optimal": outcome.optimal, "per_team": outcome.breaks.per_team}
@@ -220,6 +223,7 @@ def plan_json(outcome: PlanOutcome, league: League, rules: list[tuple[str, bool]
             "status": result.status, "reasons": result.reasons,
             "assignments": result.assignments, "fixtures": fixtures, "breaks": breaks,
             "byes": byes, "rules": [{"rule": text, "met": met} for text, met in rules],
+            "requests": requests,
             "notes": schedule.notes if schedule is not None else [],
             "seconds": round(seconds, 3)}
 

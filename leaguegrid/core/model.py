@@ -140,6 +140,20 @@ class Blocked:
 
 
 @dataclass
+class Request:
+    """A club's wish (Requests sheet): a team at home (or away) in a round, met where possible."""
+
+    team: str
+    round: int
+    side: Literal["home", "away"]
+    reason: str = ""
+    row: int | None = None
+
+    def __str__(self) -> str:
+        return f"{self.team} {self.side} in round {self.round}"
+
+
+@dataclass
 class Venue:
     """A ground: its pitch count and, optionally, its position."""
 
@@ -185,6 +199,7 @@ class League:
     ties: list[Tie] = field(default_factory=list)
     splits: list[Split] = field(default_factory=list)
     blocked: list[Blocked] = field(default_factory=list)
+    requests: list[Request] = field(default_factory=list)
     distances: dict[tuple[str, str], float] = field(default_factory=dict)
     warnings: list[Problem] = field(default_factory=list)
 

@@ -1,5 +1,6 @@
 """Places in the round robin timetable for teams whose grounds limit them: pitches, closed
-rounds, grounds that may not both host in one round.
+rounds, grounds that may not both host in one round; then, where the grounds allow, the
+clubs' requests to be at home (or not) in a round.
 
 Each division's teams take the places 0..n-1 of core.round_robin's timetable; any seating keeps
 its breaks at the fewest there can be (de Werra 1981), so the grounds decide the seating alone.
@@ -28,6 +29,8 @@ class Grounds:
     pitches: dict[str, int] = field(default_factory=dict)
     closed: dict[str, frozenset[int]] = field(default_factory=dict)
     apart: tuple[tuple[str, str], ...] = ()
+    wishes: dict[str, tuple[tuple[int, bool], ...]] = field(default_factory=dict)  # team ->
+    # (round, at home?) from the Requests sheet: met where the grounds allow
 
 
 @dataclass(frozen=True)
@@ -59,7 +62,7 @@ def seat_for_grounds(divisions: Sequence[Sequence[str]], ground: dict[str, str |
     together; where no seating the search finds does that, the one with fewest conflicts."""
     seated = seat_teams(divisions, ground)
     search = _Search(seated, ground, grounds, season)
-    if search.conflicts:
+    if search.conflicts or search.missed:
         search.run(random.Random(seed))
     return search.seated
 
@@ -93,6 +96,15 @@ class _Search:
             for place, name in enumerate(order):
                 self._add(name, len(order), place, 1)
         self.conflicts = sum(self._cost(g) for g in self.watched)
+        members = {name for order in seated for name in order}
+        self.wishes = {n: w for n, w in grounds.wishes.items() if n in members}
+        self.missed = sum(self._missed(order[p], len(order), p) for order in self.seated
+                          for p in range(len(order)) if order[p] in self.wishes)
+
+    def _missed(self, name: str, size: int, place: int) -> int:
+        """The team's wishes its place does not meet (away: not at home, a bye will do)."""
+        home = self.patterns[size][place]
+        return sum(1 for r, at_home in self.wishes.get(name, ()) if (r in home) != at_home)
 
     def _add(self, name: str, size: int, place: int, sign: int) -> None:
         g = self.ground.get(name)
@@ -118,46 +130,55 @@ class _Search:
         return out | {p for g in list(out) for p in self.partners.get(g, ())}
 
     def run(self, rng: random.Random) -> None:
-        """Min-conflicts: take a team on a ground in conflict and make the swap within its
-        division that lowers the conflicts most (ties broken at random; now and then a random
-        swap instead, to leave a local minimum), keeping the best seating seen."""
-        where = {name: (d, order) for d, order in enumerate(self.seated) for name in order}
+        """Min-conflicts: take a team on a ground in conflict (or with a wish unmet) and make
+        the swap within its division that lowers the conflicts most, then the unmet wishes
+        (ties broken at random; now and then a random swap instead, to leave a local
+        minimum), keeping the best seating seen."""
+        where = {name: order for order in self.seated for name in order}
         at: dict[str, list[str]] = {}
         for name, g in self.ground.items():
-            if name in where:
-                at.setdefault(g, []).append(name)
+            at.setdefault(g, []).append(name)
         cost = {g: self._cost(g) for g in self.watched}
-        best, best_cost = [list(o) for o in self.seated], self.conflicts
+        best = [list(o) for o in self.seated]
+        best_key = (self.conflicts, self.missed)
         for _ in range(STEPS):
-            if best_cost == 0:
+            if best_key == (0, 0):
                 break
             bad = sorted(g for g, c in cost.items() if c)
-            if not bad:
-                break
-            g = rng.choice(bad)
-            g = rng.choice([g, *self.partners.get(g, ())])
-            name = rng.choice(at[g])
-            _, order = where[name]
-            a = order.index(name)
-            if rng.random() < NOISE:
-                choices = [rng.choice([b for b in range(len(order)) if b != a])]
+            wanting = sorted(n for n in self.wishes
+                             if self._missed(n, len(where[n]), where[n].index(n)))
+            if bad and (not wanting or rng.random() < 0.8):
+                g = rng.choice(bad)
+                name = rng.choice(at[rng.choice([g, *self.partners.get(g, ())])])
+            elif wanting:
+                name = rng.choice(wanting)
             else:
-                choices = [b for b in range(len(order)) if b != a]
+                break
+            order = where[name]
+            a = order.index(name)
+            others = [b for b in range(len(order)) if b != a]
+            choices = [rng.choice(others)] if rng.random() < NOISE else others
             scored = []
             for b in choices:
                 touched = self._affected((order[a], order[b]))
                 before = sum(cost[t] for t in touched)
+                missed = self._missed(order[a], len(order), a) + self._missed(
+                    order[b], len(order), b)
                 self._swap(order, a, b)
                 after = {t: self._cost(t) for t in touched}
+                missed = self._missed(order[a], len(order), a) + self._missed(
+                    order[b], len(order), b) - missed
                 self._swap(order, a, b)
-                scored.append((sum(after.values()) - before, rng.random(), b, after))
-            delta, _, b, after = min(scored)
+                scored.append((sum(after.values()) - before, missed, rng.random(), b, after))
+            delta, missed, _, b, after = min(scored)
             self._swap(order, a, b)
             cost.update(after)
             self.conflicts += delta
-            if self.conflicts < best_cost:
-                best, best_cost = [list(o) for o in self.seated], self.conflicts
-        self.seated, self.conflicts = best, best_cost
+            self.missed += missed
+            if (self.conflicts, self.missed) < best_key:
+                best, best_key = [list(o) for o in self.seated], (self.conflicts, self.missed)
+        self.seated = best
+        self.conflicts, self.missed = best_key
 
     def _swap(self, order: list[str], a: int, b: int) -> None:
         size = len(order)

@@ -7,7 +7,8 @@ draw or the rule search. Then Kempe-chain moves (textbook graph colouring: swapp
 along a connected set of clashing fixtures keeps every clash apart), accepted when the breaks
 do not rise and now and then when they do (simulated annealing), for a fixed number of steps:
 the same league and seed give the same schedule on any machine and under any load. A budget
-or Cancel only ends the search early, with the best schedule so far.
+or Cancel only ends the search early, with the best schedule so far. The clubs' requests
+(Requests sheet) come first: an unmet request weighs as much as one break per team, and one.
 """
 
 from __future__ import annotations
@@ -20,6 +21,7 @@ from leaguegrid import engine
 from leaguegrid.core.model import League
 from leaguegrid.scheduling.breaks import BreakCount, break_lower_bound, count_breaks
 from leaguegrid.scheduling.constraints import CountingModel
+from leaguegrid.scheduling.requests import unmet_requests
 from leaguegrid.scheduling.rules import check_generator, round_robins
 
 STEPS = 4000  # local-search steps (each one Kempe-chain move tried)
@@ -123,7 +125,9 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
     current = dict(timetable if origin == "timetable" else start)
     bound = breaks_bound(league, rounds)
     best, best_breaks = dict(current), count_breaks(league, current)
-    cost = best_breaks.total
+    weight = len(league.teams) + 1  # an unmet request weighs more than any team's breaks
+    best_unmet = len(unmet_requests(league, current))
+    cost = best_breaks.total + weight * best_unmet
     rng = random.Random(f"{seed}:breaks")
     nodes = sorted(model.graph.nodes)
     members = {v: list(model.members[v]) for v in nodes}
@@ -133,7 +137,7 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
               if rules.mirrored else {})
     half = -(-rounds // 2)
     for step in range(steps):
-        if bound is not None and best_breaks.total <= bound:
+        if bound is not None and best_breaks.total <= bound and not best_unmet:
             break
         if hooks is not None and step % CHECK_EVERY == 0:
             try:
@@ -151,12 +155,13 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
         if model.generator.active and check_generator(league, model.generator, trial, rounds):
             continue
         counted = count_breaks(league, trial)
-        new = counted.total
+        unmet = len(unmet_requests(league, trial))
+        new = counted.total + weight * unmet
         heat = 2.0 * (1 - step / steps) + 0.05
         if new <= cost or rng.random() < math.exp((cost - new) / heat):
             current, cost = trial, new
-            if new < best_breaks.total:
-                best, best_breaks = trial, counted
+            if (unmet, counted.total) < (best_unmet, best_breaks.total):
+                best, best_breaks, best_unmet = trial, counted, unmet
     return Optimised(best, best_breaks, bound, origin, done, stopped)
 
 

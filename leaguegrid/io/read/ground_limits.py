@@ -18,9 +18,10 @@ from leaguegrid.io.read.problems import Report
 from leaguegrid.io.read.rules_sheets import blocked_rounds
 
 
-def ground_limits(ctx: ReadContext, blocked: Table | None, clashes: Table | None) -> Grounds:
+def ground_limits(ctx: ReadContext, blocked: Table | None, clashes: Table | None,
+                  requests: Table | None = None) -> Grounds:
     """Pitches of every venue, rounds a venue is blocked in (Blocked rows naming a venue and
-    no team), and pairs of venues a Clashes row keeps apart."""
+    no team), pairs of venues a Clashes row keeps apart, and the Requests sheet's wishes."""
     pitches = {name_key(v.name): v.pitches for v in ctx.venues.values()}
     quiet = replace(ctx, report=Report(ctx.report.file))
     closed: dict[str, set[int]] = {}
@@ -38,7 +39,20 @@ def ground_limits(ctx: ReadContext, blocked: Table | None, clashes: Table | None
             b = _venue(clashes.text(row, "second"), ctx)
             if a and b and a != b:
                 apart.append((a, b))
-    return Grounds(pitches, {g: frozenset(r) for g, r in closed.items()}, tuple(apart))
+    wishes: dict[str, list[tuple[int, bool]]] = {}
+    if requests is not None and all(requests.has(c) for c in ("team", "side")):
+        for row in requests.rows:
+            text = requests.text(row, "team") or ""
+            if match := QUALIFIED.fullmatch(text):
+                text = match[2].strip() if match[1].casefold() == "team" else ""
+            team = ctx.team_names.get(text) if text else None
+            side = (requests.text(row, "side") or "").strip().casefold()
+            if team is None or side not in ("home", "away"):
+                continue
+            for r in blocked_rounds(requests, row, quiet) or []:
+                wishes.setdefault(team, []).append((r, side == "home"))
+    return Grounds(pitches, {g: frozenset(r) for g, r in closed.items()}, tuple(apart),
+                   {team: tuple(w) for team, w in wishes.items()})
 
 
 def _venue(text: str | None, ctx: ReadContext) -> str | None:

@@ -35,9 +35,11 @@ from leaguegrid.io.read.rounds_sheet import ROUNDS_COLUMNS, RoundLookup, read_ro
 from leaguegrid.io.read.rules_sheets import (
     BLOCKED_COLUMNS,
     DISTANCES_COLUMNS,
+    REQUESTS_COLUMNS,
     VENUES_COLUMNS,
     read_blocked,
     read_distances,
+    read_requests,
     read_venues,
 )
 from leaguegrid.io.read.settings_sheet import SETTINGS_COLUMNS, read_settings
@@ -55,6 +57,7 @@ SHEETS = {
         "Ties",
         "Splits",
         "Blocked",
+        "Requests",
         "Venues",
         "Distances",
     )
@@ -68,6 +71,7 @@ SHEET_COLUMNS = {
     "ties": PAIR_COLUMNS,
     "splits": PAIR_COLUMNS,
     "blocked": BLOCKED_COLUMNS,
+    "requests": REQUESTS_COLUMNS,
     "venues": VENUES_COLUMNS,
     "distances": DISTANCES_COLUMNS,
 }
@@ -192,7 +196,8 @@ def _build(
         complete_from_teams(fixtures, ctx)
         _after_sheet_fixtures(fixtures, teams, ctx)
     else:
-        limits = ground_limits(ctx, tables.get("blocked"), tables.get("clashes"))
+        limits = ground_limits(ctx, tables.get("blocked"), tables.get("clashes"),
+                               tables.get("requests"))
         fixtures = generate_fixtures(teams, ctx, limits)
     ctx.fixtures = fixtures
     league = League(
@@ -376,5 +381,7 @@ def _read_rules(
         league.splits = read_splits(table, resolver)
     if (table := _optional(tables, found, "blocked", ctx.report)) is not None:
         league.blocked = read_blocked(table, resolver)
+    if (table := _optional(tables, found, "requests", ctx.report)) is not None:
+        league.requests = read_requests(table, resolver)
     if (table := _optional(tables, found, "distances", ctx.report)) is not None:
         league.distances = read_distances(table, ctx)

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import datetime as dt
 
-from leaguegrid.core.model import Blocked
+from leaguegrid.core.model import Blocked, Request
 from leaguegrid.core.names import suggestion
 from leaguegrid.io.read.clash_rows import Resolver
 from leaguegrid.io.read.columns import Row, Table, require
@@ -20,6 +20,13 @@ VENUES_COLUMNS = {
     "longitude": "Longitude",
 }
 DISTANCES_COLUMNS = {"from": "From", "to": "To", "km": "Km"}
+REQUESTS_COLUMNS = {
+    "team": "Team",
+    "round": "Round",
+    "date": "Date",
+    "side": "Side",
+    "reason": "Reason",
+}
 BLOCKED_COLUMNS = {
     "team": "Team",
     "venue": "Venue",
@@ -156,6 +163,36 @@ def read_blocked(table: Table, resolver: Resolver) -> list[Blocked]:
         for number in rounds:
             for kind, name in whom:
                 out.append(Blocked(number, reason=reason, row=row.number, **{kind: name}))
+    return out
+
+
+def read_requests(table: Table, resolver: Resolver) -> list[Request]:
+    """Requests rows: a team at home or away in a round (or in every round on a date)."""
+    ctx = resolver.ctx
+    report = ctx.report
+    ok = require(table, "team", "Team", report) & require(table, "side", "Side", report)
+    if not (table.has("round") or table.has("date")):
+        report.error("the sheet needs a Round or a Date column", table.sheet_place())
+        ok = False
+    if not ok:
+        return []
+    out = []
+    for row in table.rows:
+        text = table.text(row, "team")
+        target = None
+        if text is None:
+            report.error("the row needs a Team", table.at(row, "team"))
+        else:
+            target = resolver.resolve(text, table.at(row, "team"), ("team",))
+        side = (table.text(row, "side") or "").strip().casefold()
+        if side not in ("home", "away"):
+            report.error("the side must be home or away", table.at(row, "side"))
+        rounds = blocked_rounds(table, row, ctx)
+        if target is None or rounds is None or side not in ("home", "away"):
+            continue
+        reason = table.text(row, "reason") or ""
+        out += [Request(target.name, number, "home" if side == "home" else "away", reason,
+                        row.number) for number in rounds]
     return out
 
 

@@ -14,7 +14,12 @@ from leaguegrid.core.wording import CAUTION
 from leaguegrid.io.read.clash_rows import PAIR_COLUMNS
 from leaguegrid.io.read.fixtures_sheet import FIXTURES_COLUMNS, TEAMS_COLUMNS
 from leaguegrid.io.read.rounds_sheet import ROUNDS_COLUMNS
-from leaguegrid.io.read.rules_sheets import BLOCKED_COLUMNS, DISTANCES_COLUMNS, VENUES_COLUMNS
+from leaguegrid.io.read.rules_sheets import (
+    BLOCKED_COLUMNS,
+    DISTANCES_COLUMNS,
+    REQUESTS_COLUMNS,
+    VENUES_COLUMNS,
+)
 from leaguegrid.io.read.settings_sheet import SETTINGS_COLUMNS
 from leaguegrid.io.write.atomic import atomic_write
 
@@ -74,6 +79,13 @@ SHEETS: list[tuple[str, dict[str, str], list[dict[str, object]], str]] = [
         {"venue": "Example Park", "round": 3, "reason": "ground closed (example)"},
         {"team": "Example Reds", "date": dt.date(2027, 3, 20), "reason": "camp (example)"},
     ], "A team or venue that cannot play in a round (or on a date), with the reason."),
+    ("Requests", REQUESTS_COLUMNS, [
+        {"team": "Example Reds", "date": dt.date(2027, 3, 13), "side": "home",
+         "reason": "club fun day (example)"},
+        {"team": "Example Blues", "round": 2, "side": "away",
+         "reason": "ground let out (example)"},
+    ], "A club's wish: a team at home (or away) in a round or on a date. Met where every "
+       "rule allows it; the schedule's notes list the requests it could not meet."),
     ("Venues", VENUES_COLUMNS, [
         {"venue": "Example Park", "pitches": 1},
         {"venue": "Example Oval", "pitches": 1},
