@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
+from pathlib import Path
 
 import networkx as nx
 
@@ -10,6 +11,8 @@ from leaguegrid import engine
 from leaguegrid.app.defaults import SCORE_TERMS
 from leaguegrid.core import wording
 from leaguegrid.core.model import League, Request, Schedule
+from leaguegrid.io.read import previous as previous_schedule
+from leaguegrid.io.read.previous import PreviousSchedule
 from leaguegrid.scheduling import score
 from leaguegrid.scheduling.breaks import BreakCount, count_breaks, team_byes
 from leaguegrid.scheduling.check import check_schedule
@@ -17,6 +20,7 @@ from leaguegrid.scheduling.constraints import build_model
 from leaguegrid.scheduling.dates import DatesError, round_dates
 from leaguegrid.scheduling.draw import PlanResult, fresh_seed, plan
 from leaguegrid.scheduling.optimise import breaks_bound, fewer_breaks, holds, timetable_start
+from leaguegrid.scheduling.replan import Move, keep_previous
 from leaguegrid.scheduling.requests import unmet_requests
 from leaguegrid.scheduling.rules import Violation, generator_rules
 
@@ -132,11 +136,51 @@ def request_notes(league: League, assignment: dict[str, int]) -> list[str]:
     return out
 
 
+@dataclass
+class Replan:
+    """A schedule made again from a previous one, and what changed for each club."""
+
+    outcome: PlanOutcome
+    moves: list[Move]
+    by_club: dict[str, list[str]]  # club (or team, without a Club) -> its fixtures that moved
+
+
+def read_previous(path: str | Path, league: League) -> PreviousSchedule:
+    """A schedule published before (a CSV with Fixture and Round columns), with its problems."""
+    return previous_schedule.read_previous(path, league)
+
+
+def replan(league: League, graph: nx.Graph, rounds: int, previous: dict[str, int],
+           seed: int | None = None, hooks: engine.Hooks | None = None) -> Replan:
+    """Keep `previous` (fixture label -> round) where every rule allows, moving as few
+    fixtures as possible; what moved, club by club, with dates where the league has them."""
+    given = seed is not None
+    seed = seed if seed is not None else fresh_seed()
+    done = keep_previous(league, graph, rounds, previous, seed, hooks)
+    outcome = PlanOutcome(rounds, seed, given, done.result,
+                          breaks_bound=breaks_bound(league, rounds))
+    if outcome.schedule is not None:
+        outcome.breaks = count_breaks(league, outcome.schedule.assignment)
+    titles = [t.replace("\n", " ") for t in round_titles(league, rounds)]
+    by_club: dict[str, list[str]] = {}
+    for move in done.moves:
+        f = league.fixture(move.label)
+        was = titles[move.before - 1] if move.before and move.before <= rounds else (
+            f"round {move.before}" if move.before else "not in the previous schedule")
+        line = f"{f.label}: {was} -> {titles[move.after - 1]}"
+        clubs = {(league.teams[t].club if t in league.teams and league.teams[t].club else t)
+                 for t in f.teams}
+        for club in sorted(clubs):
+            by_club.setdefault(club, []).append(line)
+    return Replan(outcome, done.moves, dict(sorted(by_club.items())))
+
+
 RULE_OF = {"clashes": "clash", "splits": "split", "ties": "tie", "pins": "pin",
            "played": "played", "blocked": "blocked", "return half": "return half",
            "venue capacity": "capacity", "max home run": "home run",
            "max away run": "away run", "round balance": "balance", "leg gap": "leg gap",
            "mirrored return half": "mirrored", "byes apart": "byes"}
+
 
 
 def rules_met(league: League, graph: nx.Graph, schedule: Schedule) -> list[tuple[str, bool]]:

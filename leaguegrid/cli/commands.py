@@ -65,9 +65,19 @@ def cmd_plan(args: argparse.Namespace) -> int:
         terms = planning.parse_terms(args.score)
         hooks = engine.Hooks(budget=args.budget)
         started = time.perf_counter()
-        outcome = planning.make_schedule(opened.league, opened.graph, args.rounds, args.seed,
-                                         args.draws, terms, hooks=hooks,
-                                         uniform=args.uniform)
+        replanned = None
+        if args.keep is not None:
+            previous = planning.read_previous(args.keep, opened.league)
+            if not previous.ok:
+                render.print_problems(previous.problems, sys.stderr)
+                return INPUT_PROBLEMS
+            replanned = planning.replan(opened.league, opened.graph, args.rounds,
+                                        previous.rounds, args.seed, hooks)
+            outcome = replanned.outcome
+        else:
+            outcome = planning.make_schedule(opened.league, opened.graph, args.rounds,
+                                             args.seed, args.draws, terms, hooks=hooks,
+                                             uniform=args.uniform)
         seconds = time.perf_counter() - started
     except ValueError as err:
         raise UsageError(str(err)) from err
@@ -77,11 +87,17 @@ def cmd_plan(args: argparse.Namespace) -> int:
         rules = planning.rules_met(opened.league, opened.graph, schedule) if schedule else []
         byes = planning.byes(opened.league, schedule) if schedule else {}
         data = render.plan_json(outcome, opened.league, rules, byes, seconds)
+        if replanned is not None:
+            data["moved"] = [{"label": m.label, "before": m.before, "after": m.after}
+                             for m in replanned.moves]
+            data["changes_by_club"] = replanned.by_club
         print(json.dumps(data, indent=2, ensure_ascii=False), file=sys.stdout)
         if schedule is None:
             render.print_plan(outcome, opened.league, sys.stderr, sys.stderr)
     else:
         render.print_plan(outcome, opened.league, sys.stdout, sys.stderr)
+        if replanned is not None and outcome.schedule is not None:
+            render.print_changes(replanned.by_club, sys.stdout)
     if outcome.schedule is None:
         return PLAN_EXITS[outcome.result.status]
     targets = export.ExportTargets(xlsx=args.out, csv=args.csv, ics=args.ics)

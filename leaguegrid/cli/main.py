@@ -70,6 +70,9 @@ def build_parser() -> argparse.ArgumentParser:
     plan.add_argument("--json", action="store_true", help="one JSON object on stdout")
     plan.add_argument("--uniform", action="store_true",
                       help="draw uniformly among all valid schedules instead of optimising")
+    plan.add_argument("--keep", type=Path, metavar="PREVIOUS.csv",
+                      help="keep this earlier schedule (its Fixture and Round columns) where "
+                           "every rule allows, moving as few fixtures as possible")
     plan.add_argument("--out", type=Path, metavar="CALENDAR.xlsx")
     plan.add_argument("--ics", type=Path, metavar="DIR")
     plan.add_argument("--csv", type=Path, metavar="FILE")

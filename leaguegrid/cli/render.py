@@ -228,6 +228,18 @@ def plan_json(outcome: PlanOutcome, league: League, rules: list[tuple[str, bool]
             "seconds": round(seconds, 3)}
 
 
+def print_changes(by_club: dict[str, list[str]], out: TextIO) -> None:
+    """What the re-plan moved, club by club."""
+    if not by_club:
+        print("\nChanges: none; every fixture is where it was", file=out)
+        return
+    print("\nChanges by club:", file=out)
+    for club, lines in by_club.items():
+        print(f"  {club}:", file=out)
+        for line in lines:
+            print(f"    {line}", file=out)
+
+
 def print_written(paths: list, out: TextIO) -> None:
     """The files an export wrote."""
     if paths:

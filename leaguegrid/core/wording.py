@@ -21,7 +21,9 @@ METHODS = {"uniform": "drawn uniformly at random from every valid assignment",
            "search": "found by the rule-aware generator",
            "optimised": "optimised for the fewest breaks, every rule kept",
            "timetable": "taken from the round robin timetable LeagueGrid generated",
-           "edited": "edited by hand"}
+           "edited": "edited by hand",
+           "kept": "re-planned from the previous schedule, moving as few fixtures as the "
+                   "rules force"}
 
 
 def plural(n: int, one: str, many: str | None = None) -> str:

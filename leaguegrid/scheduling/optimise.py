@@ -116,18 +116,26 @@ def holds(model: CountingModel, assignment: dict[str, int]) -> bool:
 
 
 def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
-                 hooks: engine.Hooks | None = None, steps: int = STEPS) -> Optimised:
+                 hooks: engine.Hooks | None = None, steps: int = STEPS,
+                 keep: dict[str, int] | None = None) -> Optimised:
     """The best schedule the local search finds from the timetable (when it holds) or from
-    `start` (a valid schedule), by breaks; deterministic for a given seed and `steps`."""
+    `start` (a valid schedule), by breaks; deterministic for a given seed and `steps`. With
+    `keep` (a previous schedule), fixtures moved from it count first, then requests, then
+    breaks, and the search starts from `start`."""
     league, rounds = model.league, model.rounds
-    timetable = timetable_start(league, rounds)
+    timetable = None if keep is not None else timetable_start(league, rounds)
     origin = "timetable" if timetable is not None and holds(model, timetable) else "schedule"
     current = dict(timetable if origin == "timetable" else start)
     bound = breaks_bound(league, rounds)
     best, best_breaks = dict(current), count_breaks(league, current)
     weight = len(league.teams) + 1  # an unmet request weighs more than any team's breaks
-    best_unmet = len(unmet_requests(league, current))
-    cost = best_breaks.total + weight * best_unmet
+    moved_weight = weight * (len(league.requests) + 1)
+
+    def shifted(assignment: dict[str, int]) -> int:
+        return 0 if keep is None else sum(keep.get(lab) != r for lab, r in assignment.items())
+
+    best_penalty = len(unmet_requests(league, current)) + moved_weight * shifted(current)
+    cost = best_breaks.total + weight * best_penalty
     rng = random.Random(f"{seed}:breaks")
     nodes = sorted(model.graph.nodes)
     members = {v: list(model.members[v]) for v in nodes}
@@ -137,7 +145,7 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
               if rules.mirrored else {})
     half = -(-rounds // 2)
     for step in range(steps):
-        if bound is not None and best_breaks.total <= bound and not best_unmet:
+        if bound is not None and best_breaks.total <= bound and not best_penalty and not keep:
             break
         if hooks is not None and step % CHECK_EVERY == 0:
             try:
@@ -155,13 +163,13 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
         if model.generator.active and check_generator(league, model.generator, trial, rounds):
             continue
         counted = count_breaks(league, trial)
-        unmet = len(unmet_requests(league, trial))
-        new = counted.total + weight * unmet
+        penalty = len(unmet_requests(league, trial)) + moved_weight * shifted(trial)
+        new = counted.total + weight * penalty
         heat = 2.0 * (1 - step / steps) + 0.05
         if new <= cost or rng.random() < math.exp((cost - new) / heat):
             current, cost = trial, new
-            if (unmet, counted.total) < (best_unmet, best_breaks.total):
-                best, best_breaks, best_unmet = trial, counted, unmet
+            if (penalty, counted.total) < (best_penalty, best_breaks.total):
+                best, best_breaks, best_penalty = trial, counted, penalty
     return Optimised(best, best_breaks, bound, origin, done, stopped)
 
 

@@ -77,6 +77,7 @@ class _State:
             for i in members:
                 self.node_cliques[i].append(ci)
         self.touched: set[int] = set()
+        self.prefer: list[int] = []  # node -> round to try first (0: none)
         self.size = [len(model.members[v]) for v in self.nodes]
         self.fixtures = sum(self.size)
         order = {f.label: i for i, f in enumerate(model.league.fixtures)}
@@ -302,6 +303,8 @@ class _State:
             if self.val[i]:
                 continue
             k = (len(self.dom[i]), -len(self.adj[i]), tiebreak[i])
+            if self.prefer:  # keeping a schedule: the fixtures that must move go first
+                k = (self.prefer[i] in self.dom[i], *k)
             if key is None or k < key:
                 best, key = i, k
         return best
@@ -333,6 +336,7 @@ def search(
     rules: GeneratorRules | None = None,
     hooks: Hooks | None = None,
     explain: bool = True,
+    prefer: dict[str, int] | None = None,
 ) -> SearchResult:
     """A schedule meeting the counting model and the generator rules, or why there is none.
 
@@ -349,6 +353,9 @@ def search(
         return SearchResult("impossible", reasons=proofs,
                             seconds=time.monotonic() - started)
     state = _State(model, rules)
+    if prefer:
+        state.prefer = [next((prefer[lab] for lab in model.members[v] if lab in prefer), 0)
+                        for v in state.nodes]
     steps = restarts = 0
     deepest = 0
     while True:
@@ -469,5 +476,8 @@ def _ordered(state: _State, i: int, rng: random.Random) -> list[int]:
     rng.shuffle(values)
     if state.high is not None:
         values.sort(key=lambda r: state.tot[r])
+    if state.prefer and state.prefer[i] in state.dom[i]:
+        values.remove(state.prefer[i])
+        values.insert(0, state.prefer[i])
     return values
 
