@@ -9,7 +9,7 @@ from leaguegrid.core.names import suggestion
 from leaguegrid.io.read.clash_rows import Resolver
 from leaguegrid.io.read.columns import Row, Table, require
 from leaguegrid.io.read.context import ReadContext
-from leaguegrid.io.read.problems import Place
+from leaguegrid.io.read.problems import Place, Report
 from leaguegrid.io.read.rounds_sheet import round_cell
 from leaguegrid.io.read.values import date_advice, to_date, to_number, whole_number
 
@@ -140,6 +140,14 @@ def _km(table: Table, row: Row, ctx: ReadContext) -> float | None:
     return km
 
 
+def _round_or_date(table: Table, report: Report) -> bool:
+    """True when the sheet has a Round or a Date column; otherwise reported."""
+    if table.has("round") or table.has("date"):
+        return True
+    report.error("the sheet needs a Round or a Date column", table.sheet_place())
+    return False
+
+
 def read_blocked(table: Table, resolver: Resolver) -> list[Blocked]:
     """Blocked rows: a team or venue (or both) kept out of a round, or of every round on a date."""
     ctx = resolver.ctx
@@ -148,10 +156,7 @@ def read_blocked(table: Table, resolver: Resolver) -> list[Blocked]:
     if not (table.has("team") or table.has("venue")):
         report.error("the sheet needs a Team or a Venue column", table.sheet_place())
         ok = False
-    if not (table.has("round") or table.has("date")):
-        report.error("the sheet needs a Round or a Date column", table.sheet_place())
-        ok = False
-    if not ok:
+    if not (_round_or_date(table, report) and ok):
         return []
     out = []
     for row in table.rows:
@@ -171,10 +176,7 @@ def read_requests(table: Table, resolver: Resolver) -> list[Request]:
     ctx = resolver.ctx
     report = ctx.report
     ok = require(table, "team", "Team", report) & require(table, "side", "Side", report)
-    if not (table.has("round") or table.has("date")):
-        report.error("the sheet needs a Round or a Date column", table.sheet_place())
-        ok = False
-    if not ok:
+    if not (_round_or_date(table, report) and ok):
         return []
     out = []
     for row in table.rows:

@@ -108,11 +108,8 @@ def _apply(key: str, table: Table, row: Row, out: SettingsRead, report: Report) 
             report.error(f"not a date: {date_advice(value)}", place)
         out.settings = replace(s, start_date=day)
     elif key == "every":
-        days = whole_number(value)
-        if days is None or days < 1:
-            report.error(f"{NOT_POSITIVE} of days", place)
-        else:
-            out.settings = replace(s, every_days=days)
+        out.settings = replace(s, every_days=_positive(value, "days", place, report)
+                               or s.every_days)
     elif key == "skip":
         out.settings = replace(s, skip=_skip_dates(value, place, report))
     elif key == "league":
@@ -145,11 +142,17 @@ def _apply(key: str, table: Table, row: Row, out: SettingsRead, report: Report) 
         else:
             out.settings = replace(s, byes_apart=answer)
     elif key == "leggap":
-        gap = whole_number(value)
-        if gap is None or gap < 1:
-            report.error(f"{NOT_POSITIVE} of rounds", place)
-        else:
-            out.settings = replace(s, leg_gap=gap)
+        out.settings = replace(s, leg_gap=_positive(value, "rounds", place, report)
+                               or s.leg_gap)
+
+
+def _positive(value: object, unit: str, place: Place, report: Report) -> int | None:
+    """A positive whole number of days or rounds, or None after reporting it is not one."""
+    number = whole_number(value)
+    if number is None or number < 1:
+        report.error(f"{NOT_POSITIVE} of {unit}", place)
+        return None
+    return number
 
 
 def _skip_dates(value: object, place: Place, report: Report) -> tuple:
