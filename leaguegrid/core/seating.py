@@ -86,9 +86,8 @@ class _Search:
         # only grounds that can be in conflict matter
         self.watched = {g for g, count in at.items() if count > grounds.pitches.get(g, 1)
                         or grounds.closed.get(g) or g in self.partners}
-        self.ground = {name: g for name, g in ground.items() if g in self.watched}
-        self.ground = {name: self.ground[name] for order in seated for name in order
-                       if name in self.ground}
+        self.ground = {name: g for order in seated for name in order
+                       if (g := ground.get(name)) in self.watched}
         self.patterns = {len(o): season.home_rounds(len(o)) for o in seated if o}
         last = max((r for pats in self.patterns.values() for p in pats for r in p), default=0)
         self.home: dict[str, list[int]] = {g: [0] * (last + 1) for g in self.watched}
