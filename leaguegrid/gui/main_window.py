@@ -131,8 +131,8 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, QMainWindow):
         usable = self.doc.usable
         has_schedule = self.doc.schedule is not None
         for act in (self.act_count, self.act_draw, self.act_uniform, self.act_best,
-                    self.act_whatif, self.act_save, self.act_save_as, self.act_add_clash,
-                    self.act_tie, self.act_pin, self.act_unpin):
+                    self.act_replan, self.act_whatif, self.act_save, self.act_save_as,
+                    self.act_add_clash, self.act_tie, self.act_pin, self.act_unpin):
             act.setEnabled(usable)
         self.act_redraw.setEnabled(usable and has_schedule and self.doc.schedule.seed is not None)
         self.act_export.setEnabled(usable and has_schedule)

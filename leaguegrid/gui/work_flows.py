@@ -3,17 +3,20 @@ case of leaguegrid.app run by the Runner (in the engine process by default, else
 
 from __future__ import annotations
 
+import html
 import random
+from pathlib import Path
 from typing import Any
 
 import networkx as nx
-from PySide6.QtWidgets import QInputDialog
+from PySide6.QtWidgets import QFileDialog, QInputDialog
 
 from leaguegrid.app import counting, league, planning
 from leaguegrid.app import whatif as what
 from leaguegrid.app.defaults import BEST_OF, COUNT_BUDGET, PLAN_BUDGET, WHATIF_BUDGET
 from leaguegrid.core import wording
 from leaguegrid.gui import procworker
+from leaguegrid.gui.notices import inform
 from leaguegrid.gui.worker import Job, JobFn, call
 
 
@@ -109,6 +112,40 @@ class WorkFlows:
         if ok:
             self.settings.setValue("bestOf", n)
             self.draw_schedule(draws=n)
+
+    def replan_dialog(self: Any) -> None:
+        """Plan again from a schedule written before (its CSV), keeping what the rules allow."""
+        if not self.doc.usable:
+            return
+        start = str(Path(self.doc.path).parent) if self.doc.path else ""
+        path, _f = QFileDialog.getOpenFileName(self, "Re-plan from an earlier schedule", start,
+                                               "Schedule CSV (*.csv)")
+        if path:
+            self.replan_from(path)
+
+    def replan_from(self: Any, path: str) -> None:
+        """Keep the schedule in `path` where every rule allows; say what moved, club by club."""
+        lg, graph = self.working()
+        previous = planning.read_previous(path, lg)
+        if not previous.ok:
+            self._warn("\n".join(str(p) for p in previous.problems),
+                       f"{Path(path).name} cannot be used to re-plan.")
+            return
+        k = self.rounds_box.value()
+        seed = random.SystemRandom().randrange(1, 2**31)
+        work = self._engine_job(planning.replan, lg, graph, k, previous.rounds, seed)
+        self.runner.start(Job("Re-planning", work, self._replan_done, budget=PLAN_BUDGET))
+
+    def _replan_done(self: Any, done: planning.Replan) -> None:
+        self._schedule_done(done.outcome)
+        if done.outcome.schedule is None:
+            return
+        moved = wording.plural(len(done.moves), "fixture")
+        self.stage_label.setText(f"Re-planned: {moved} moved.")
+        lines = [f"<b>{html.escape(club)}</b><br>" + "<br>".join(html.escape(x) for x in rows)
+                 for club, rows in done.by_club.items()]
+        inform(self, "Re-planned", f"{moved} moved." + (
+            "<p>" + "</p><p>".join(lines) + "</p>" if lines else ""))
 
     def _schedule_done(self: Any, outcome: planning.PlanOutcome) -> None:
         schedule = outcome.schedule

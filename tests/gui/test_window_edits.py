@@ -308,3 +308,35 @@ def test_dropping_a_fixture_on_another_rounds_cell_moves_it(qtbot, window, tmp_p
     assert window.doc.undo.undoText() == f"Move {label} from round {before} to round {target}"
     window.act_undo.trigger()
     assert window.doc.schedule.assignment[label] == before
+
+
+def test_replan_keeps_an_earlier_schedule_and_says_what_moved(qtbot, window, tmp_path,
+                                                             monkeypatch):
+    from PySide6.QtWidgets import QFileDialog
+
+    from leaguegrid.cli.main import main
+
+    path = open_small(qtbot, window, tmp_path)
+    previous = tmp_path / "before.csv"
+    assert main(["plan", str(path), "--rounds", "4", "--seed", "5", "--csv", str(previous)]) == 0
+    monkeypatch.setattr(QFileDialog, "getOpenFileName",
+                        staticmethod(lambda *a, **k: (str(previous), "")))
+    window.rounds_box.setValue(4)
+    window.act_replan.trigger()
+    wait_idle(qtbot, window)
+    schedule = window.doc.schedule
+    assert schedule is not None and schedule.method == "kept"
+    assert "re-planned from the previous schedule: 0 of 6 fixtures moved" in schedule.notes
+    assert window.stage_label.text() == "Re-planned: 0 fixtures moved."
+    rows = previous.read_text(encoding="utf-8").splitlines()[1:]
+    assert {r.split(",")[3]: int(r.split(",")[0]) for r in rows} == schedule.assignment
+
+
+def test_replan_from_a_csv_naming_unknown_fixtures_is_refused(qtbot, window, tmp_path,
+                                                              monkeypatch):
+    open_small(qtbot, window, tmp_path)
+    bad = tmp_path / "old.csv"
+    bad.write_text("Round,Fixture\n1,Nobody v Wrens\n", encoding="utf-8")
+    window.replan_from(str(bad))
+    assert window.last_error == ("old.csv, row 2, column Fixture: 'Nobody v Wrens': not a "
+                                 "fixture of this league")
