@@ -39,8 +39,8 @@ def test_problems_are_listed_and_each_goes_to_its_cell(qtbot, window, tmp_path):
     texts = [problems.index(i).data() for i in range(problems.rowCount())]
     assert texts == [
         f"{path}, sheet Fixtures, row 2, column Away: 'Otters': Home and Away are the same team",
-        f"{path}, sheet Fixtures, row 4, column Away: the row needs a Fixture label or both "
-        "Home and Away",
+        f"{path}, sheet Fixtures, row 4, column Away: 'Wrens v ?' has no Away team: give both "
+        "Home and Away, or a Fixture label",
         f"{path}, sheet Clashes, row 2, column First: 'Herons v Wrenz': no fixture, team or "
         "venue is named 'Herons v Wrenz'; did you mean 'Herons v Wrens'?",
     ]

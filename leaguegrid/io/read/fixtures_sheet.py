@@ -193,7 +193,14 @@ def _read_row(table: Table, row: Row, ctx: ReadContext) -> _Draft | None:
         missing = "away" if home_text else "home" if away_text else "fixture"
         if missing == "fixture" and not table.has("fixture"):
             missing = "home"
-        report.error("the row needs a Fixture label or both Home and Away", table.at(row, missing))
+        if home_text or away_text:
+            side = "Away" if home_text else "Home"
+            shown = f"{home_text} v ?" if home_text else f"? v {away_text}"
+            report.error(f"'{shown}' has no {side} team: give both Home and Away, or a "
+                         "Fixture label", table.at(row, missing))
+        else:
+            report.error("the row needs a Fixture label or both Home and Away",
+                         table.at(row, missing))
         return None
     if home_text and away_text and name_key(home_text) == name_key(away_text):
         report.error("Home and Away are the same team", table.at(row, "away"))

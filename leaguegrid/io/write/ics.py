@@ -5,9 +5,10 @@ Rules (for the README):
   club named in the Teams sheet (its teams' fixtures), and "league-<league>.ics" with every
   fixture (the only file holding fixtures that name no teams). Characters that file systems
   forbid become "_".
-- Event identifiers (UID) come from stable keys, never from row order: the league name, home
-  team, away team and leg (compared case- and space-insensitively), or the fixture label for a
-  fixture with no teams; where two fixtures share those keys, the label is added. The same
+- Event identifiers (UID) come from stable keys, never from row order nor the file's name or
+  place: the League setting (when given), the division, home team and away team (compared case-
+  and space-insensitively), or the fixture label for a fixture with no teams; where two
+  fixtures share those keys, the label is added. The same
   fixture has the same UID in every file and in every re-export, so calendar apps update it.
 - Times: a round with a date and a time becomes an event in the league's time zone (the
   `Time zone` setting, else the computer's), written in UTC ("...Z"), which every calendar app
@@ -79,14 +80,16 @@ def _uid(parts: Iterable[str]) -> str:
 
 
 def fixture_uids(league: League) -> dict[str, str]:
-    """Fixture label -> UID from stable keys: league, home and away (the direction tells the
-    return leg from the first); the label where a fixture has no teams or a pairing repeats in
-    the same direction. Not the leg number: the reader numbers legs in sheet order."""
-    league_key = name_key(league.settings.league or league.name)
+    """Fixture label -> UID from stable keys: the League setting (when given), the division,
+    home and away (the direction tells the return leg from the first); the label where a
+    fixture has no teams or a pairing repeats in the same direction. Never the file's name or
+    place, nor the leg number or row order: the reader numbers legs in sheet order."""
+    league_key = name_key(league.settings.league or "")
 
     def key(f: Fixture) -> tuple[str, ...]:
         if f.teams:
-            return (league_key, "teams", name_key(f.home), name_key(f.away))
+            return (league_key, name_key(f.division or ""), "teams", name_key(f.home),
+                    name_key(f.away))
         return (league_key, "fixture", name_key(f.label))
 
     keys = {f.label: key(f) for f in league.fixtures}

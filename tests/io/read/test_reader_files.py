@@ -191,7 +191,8 @@ def test_spreadsheet_error_value(tmp_path):
     found = errors(result)
     assert [(p.message, p.row, p.column, p.value) for p in found] == [
         ("cell B3 holds the spreadsheet error #REF!", 3, "Away", "#REF!"),
-        ("the row needs a Fixture label or both Home and Away", 3, "Away", None),
+        ("'Cedar v ?' has no Away team: give both Home and Away, or a Fixture label", 3, "Away",
+         None),
     ]
 
 

@@ -84,7 +84,8 @@ def test_row_needs_a_label_or_both_teams(tmp_path):
     result = load_book(tmp_path, {"Fixtures": rows})
     found = errors(result)
     assert [(p.message, where(p)) for p in found] == [
-        ("the row needs a Fixture label or both Home and Away", ("Fixtures", 2, "Away", None)),
+        ("'Alder v ?' has no Away team: give both Home and Away, or a Fixture label",
+         ("Fixtures", 2, "Away", None)),
         ("the row needs a Fixture label or both Home and Away", ("Fixtures", 3, "Fixture", None)),
     ]
     assert [f.label for f in result.league.fixtures] == ["Final"]

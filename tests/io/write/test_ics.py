@@ -384,3 +384,17 @@ def test_demo_league_calendars(tmp_path, name, rounds):
     for clash in league.clash_rows:
         assert clash.reason.encode() not in data
     assert len(cals) == 1 + len(league.teams) + len({t.club for t in league.teams.values()})
+
+
+def test_event_ids_survive_renaming_moving_and_reordering_the_workbook(tmp_path, workbook):
+    # Without a League setting, an event's id comes from its division and teams only.
+    from leaguegrid.io.read.league_reader import load_league
+
+    rows = [("Home", "Away", "Venue", "Division"), ("Herons", "Otters", "Mill", "U9"),
+            ("Wrens", "Badgers", "Alder", "U9"), ("Otters", "Herons", "Alder", "U9")]
+    first = workbook("autumn.xlsx", {"Fixtures": rows})
+    (tmp_path / "elsewhere").mkdir()
+    moved = workbook("elsewhere/renamed.xlsx", {"Fixtures": [rows[0], *reversed(rows[1:])]})
+    before = fixture_uids(load_league(first).league)
+    after = fixture_uids(load_league(moved).league)
+    assert before == after and len(set(before.values())) == 3
