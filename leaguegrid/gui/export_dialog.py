@@ -5,7 +5,7 @@ from __future__ import annotations
 import re
 from pathlib import Path
 
-from PySide6.QtCore import QSettings
+from PySide6.QtCore import QSettings, QStandardPaths
 from PySide6.QtWidgets import (
     QCheckBox,
     QDialog,
@@ -33,6 +33,16 @@ def safe_stem(name: str) -> str:
     return re.sub(r"[^\w\- ]+", "_", name).strip().replace(" ", "-") or "league"
 
 
+def export_folder(settings: QSettings) -> Path:
+    """Where exports go unless the coordinator says otherwise: the last export folder, else the
+    user's Documents folder (never the workbook's folder, which may be the demos')."""
+    last = settings.value("exportFolder")
+    if last and Path(str(last)).is_dir():
+        return Path(str(last))
+    documents = QStandardPaths.writableLocation(QStandardPaths.StandardLocation.DocumentsLocation)
+    return Path(documents) if documents else Path.home()
+
+
 class ExportDialog(QDialog):
     """Excel calendar, iCalendar per team and club, CSV: each with its target and a preview."""
 
@@ -41,7 +51,7 @@ class ExportDialog(QDialog):
         super().__init__(parent)
         self.setWindowTitle("Export the schedule")
         self.league, self.schedule, self.settings = league, schedule, settings
-        folder = Path(str(settings.value("exportFolder", Path(league.source).parent)))
+        folder = export_folder(settings)
         stem = safe_stem(league.settings.league or league.name)
         self.xlsx_on = QCheckBox("Excel calendar")
         self.xlsx_on.setChecked(True)

@@ -104,12 +104,19 @@ class FileFlows:
 
     # recent files -----------------------------------------------------------------------
     def recent_files(self: Any) -> list[str]:
+        """Recently opened files: absolute, each once, those that no longer exist left out."""
         value = self.settings.value("recent", [])
         if isinstance(value, str):
             value = [value]
-        return [str(v) for v in (value or [])]
+        out: list[str] = []
+        for item in value or []:
+            path = str(Path(str(item)).expanduser().resolve())
+            if path not in out and Path(path).is_file():
+                out.append(path)
+        return out
 
     def _remember(self: Any, path: str) -> None:
+        path = str(Path(path).expanduser().resolve())
         items = [p for p in self.recent_files() if p != path]
         items.insert(0, path)
         self.settings.setValue("recent", items[:MAX_RECENT])

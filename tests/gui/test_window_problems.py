@@ -2,6 +2,7 @@
 nothing crashes: no counts are attempted and the window stays usable."""
 
 import os
+from pathlib import Path
 
 os.environ["QT_QPA_PLATFORM"] = "offscreen"
 
@@ -109,3 +110,28 @@ def test_a_bad_project_is_said_in_a_box_that_does_not_wait(qtbot, window, tmp_pa
     assert (box.text(), box.icon()) == (message, QMessageBox.Icon.Warning)
     box.accept()
     qtbot.waitUntil(lambda: QApplication.activeModalWidget() is None)
+
+
+def test_recent_files_are_absolute_once_each_and_only_those_that_exist(window, tmp_path,
+                                                                      monkeypatch, settings):
+    kept = tmp_path / "league.xlsx"
+    kept.write_bytes(b"x")
+    monkeypatch.chdir(tmp_path)
+    settings.setValue("recent", ["league.xlsx", str(kept), str(tmp_path / "gone.xlsx")])
+    assert window.recent_files() == [str(kept.resolve())]
+    window._remember("league.xlsx")
+    assert settings.value("recent") == [str(kept.resolve())]
+
+
+def test_exports_default_to_the_documents_folder_not_the_workbooks(qtbot, window, settings):
+    from PySide6.QtCore import QStandardPaths
+
+    from leaguegrid.app.demos import demo_leagues
+    from leaguegrid.gui.export_dialog import export_folder
+
+    documents = QStandardPaths.writableLocation(
+        QStandardPaths.StandardLocation.DocumentsLocation)
+    assert export_folder(settings) == (Path(documents) if documents else Path.home())
+    assert export_folder(settings) != demo_leagues()[0].parent
+    settings.setValue("exportFolder", str(demo_leagues()[0].parent.parent))
+    assert export_folder(settings) == demo_leagues()[0].parent.parent
