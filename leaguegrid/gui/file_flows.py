@@ -57,6 +57,7 @@ class FileFlows:
         self.report = None
         self.graph = graph
         self._user_rounds = False
+        self._draw_after_count = None
         self.doc.graph = graph
         self.doc.set_result(path, result, opened.sha256, mapping)
         self.doc.project_path = None

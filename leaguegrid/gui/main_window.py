@@ -46,6 +46,7 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, QMainWindow):
         self.last_error: str | None = None
         self.last_export: list[str] = []
         self._user_rounds = False
+        self._draw_after_count: tuple | None = None  # a Draw asked for while counting
         self.setWindowIcon(icons.app_icon())
         self.setAcceptDrops(True)
         self._build_views()
@@ -162,9 +163,11 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, QMainWindow):
         self.stage_label.setText(stage)
 
     def _cancelled(self, name: str) -> None:
+        self._draw_after_count = None
         self.stage_label.setText(f"{name}: cancelled.")
 
     def _failed(self, name: str, message: str) -> None:
+        self._draw_after_count = None
         self._warn(message, f"{name} failed.")
         self.last_error = f"{name}: {message}"
         self.stage_label.setText(f"{name} failed: {message}")

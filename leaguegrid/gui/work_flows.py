@@ -9,6 +9,7 @@ from pathlib import Path
 from typing import Any
 
 import networkx as nx
+from PySide6.QtCore import QTimer
 from PySide6.QtWidgets import QFileDialog, QInputDialog
 
 from leaguegrid.app import counting, league, planning
@@ -18,6 +19,8 @@ from leaguegrid.core import wording
 from leaguegrid.gui import procworker
 from leaguegrid.gui.notices import inform
 from leaguegrid.gui.worker import Job, JobFn, call
+
+COUNTING = "Counting"  # the count's job name
 
 
 class WorkFlows:
@@ -49,7 +52,7 @@ class WorkFlows:
             self.doc.set_graph(graph)
         self.graph = graph
         work = self._engine_job(counting.count_league, lg, graph)
-        self.runner.start(Job("Counting", work, self._counts_done, budget=self._count_budget()))
+        self.runner.start(Job(COUNTING, work, self._counts_done, budget=self._count_budget()))
 
     def budget_dialog(self: Any) -> None:
         seconds, ok = QInputDialog.getInt(
@@ -69,6 +72,9 @@ class WorkFlows:
             f"Counted: fewest rounds {report.min_rounds}." if report.complete else
             "Counting stopped before the end; what is missing is marked.")
         self.countsReady.emit(report)
+        if self._draw_after_count is not None:
+            pending, self._draw_after_count = self._draw_after_count, None
+            QTimer.singleShot(0, lambda: self.draw_schedule(*pending))
 
     def _set_rounds(self: Any, k: int, user: bool) -> None:
         self.rounds_box.blockSignals(True)
@@ -88,6 +94,12 @@ class WorkFlows:
         """Make a schedule for the rounds in the toolbar (a new seed unless one is given):
         optimised for breaks, or a uniform draw."""
         if not self.doc.usable:
+            return
+        if self.runner.current_name == COUNTING and not self._user_rounds:
+            # the fewest rounds is on its way: draw for it once the count has found it
+            self._draw_after_count = (seed, draws, uniform)
+            self.stage_label.setText("The schedule is drawn as soon as the count has found "
+                                     "the fewest rounds.")
             return
         k = self.rounds_box.value()
         seed = random.SystemRandom().randrange(1, 2**31) if seed in (None, False) else seed

@@ -340,3 +340,18 @@ def test_replan_from_a_csv_naming_unknown_fixtures_is_refused(qtbot, window, tmp
     window.replan_from(str(bad))
     assert window.last_error == ("old.csv, row 2, column Fixture: 'Nobody v Wrens': not a "
                                  "fixture of this league")
+
+
+def test_draw_before_the_first_count_waits_for_the_fewest_rounds(qtbot, window, tmp_path):
+    path = tmp_path / "small.xlsx"
+    shutil.copy(SMALL, path)
+    window.open_path(str(path))
+    qtbot.waitUntil(lambda: window.runner.current_name == "Counting", timeout=30_000)
+    window.act_draw.trigger()
+    assert window.doc.schedule is None
+    assert window.stage_label.text() == ("The schedule is drawn as soon as the count has "
+                                         "found the fewest rounds.")
+    qtbot.waitUntil(lambda: window.doc.schedule is not None, timeout=30_000)
+    wait_idle(qtbot, window)
+    assert window.report.min_rounds == 4 == window.doc.schedule.rounds
+    assert window.counts_view.report is window.report
