@@ -209,7 +209,7 @@ def test_project_saves_pins_and_schedule_and_notices_a_changed_workbook(
 
 def test_column_matching_is_applied_and_remembered(qtbot, window, settings, tmp_path):
     path = tmp_path / "clubs.csv"
-    path.write_text("Home team;Away team;Ground\nOtters;Herons;Alder Green\n"
+    path.write_text("Hosts;Guests;Playing at\nOtters;Herons;Alder Green\n"
                     "Wrens;Badgers;Alder Green\nOtters;Wrens;Millbrook\n", encoding="utf-8")
     window.open_path(str(path))
     qtbot.waitUntil(lambda: window.doc.result is not None and not window.runner.busy)
@@ -219,9 +219,9 @@ def test_column_matching_is_applied_and_remembered(qtbot, window, settings, tmp_
     qtbot.waitUntil(lambda: isinstance(QApplication.activeModalWidget(),
                                        mapping_dialog.MappingDialog))
     dialog = QApplication.activeModalWidget()
-    dialog.combos["Home"].setCurrentText("Home team")
-    dialog.combos["Away"].setCurrentText("Away team")
-    dialog.combos["Venue"].setCurrentText("Ground")
+    dialog.combos["Home"].setCurrentText("Hosts")
+    dialog.combos["Away"].setCurrentText("Guests")
+    dialog.combos["Venue"].setCurrentText("Playing at")
     dialog.accept()
     qtbot.waitUntil(lambda: window.report is not None, timeout=30_000)
     wait_idle(qtbot, window)
@@ -229,9 +229,9 @@ def test_column_matching_is_applied_and_remembered(qtbot, window, settings, tmp_
     assert [f.label for f in window.doc.league.fixtures] == [
         "Otters v Herons", "Wrens v Badgers", "Otters v Wrens"]
     assert window.report.clashes == 3  # Otters twice, Wrens twice, Alder Green twice
-    assert path.read_text(encoding="utf-8").startswith("Home team;Away team;Ground")
+    assert path.read_text(encoding="utf-8").startswith("Hosts;Guests;Playing at")
     assert mapping_dialog.load_mapping(settings, str(path)) == {
-        "Home": "Home team", "Away": "Away team", "Venue": "Ground"}
+        "Home": "Hosts", "Away": "Guests", "Venue": "Playing at"}
     window.open_path(str(path))
     qtbot.waitUntil(lambda: window.report is not None and window.doc.usable, timeout=30_000)
     wait_idle(qtbot, window)
@@ -355,3 +355,15 @@ def test_draw_before_the_first_count_waits_for_the_fewest_rounds(qtbot, window, 
     wait_idle(qtbot, window)
     assert window.report.min_rounds == 4 == window.doc.schedule.rounds
     assert window.counts_view.report is window.report
+
+
+def test_usual_spreadsheet_headers_are_understood_without_matching(qtbot, window, tmp_path):
+    path = tmp_path / "clubs.csv"
+    path.write_text("Home Team;Away Team;Ground;Grade\nOtters;Herons;Alder Green;U9\n"
+                    "Wrens;Badgers;Alder Green;U9\n", encoding="utf-8")
+    window.open_path(str(path))
+    qtbot.waitUntil(lambda: window.report is not None, timeout=30_000)
+    wait_idle(qtbot, window)
+    assert window.doc.usable
+    assert [(f.home, f.away, f.venue, f.division) for f in window.doc.league.fixtures] == [
+        ("Otters", "Herons", "Alder Green", "U9"), ("Wrens", "Badgers", "Alder Green", "U9")]

@@ -12,6 +12,22 @@ from leaguegrid.io.read.sheets import RawSheet, cell_name
 from leaguegrid.io.read.values import cell_text
 
 TYPO_CUTOFF = 0.75
+# the usual spreadsheet words for our columns (case and spaces ignored): a header so named is
+# read as that column when the sheet has no column of the standard name
+ALIASES = {
+    name_key(alias): key
+    for key, aliases in {
+        "home": ("Home Team", "Home Side", "Host"),
+        "away": ("Away Team", "Away Side", "Visitor", "Visitors"),
+        "venue": ("Ground", "Field", "Court", "Location"),
+        "pitch": ("Pitch Number",),
+        "round": ("Matchday", "Week"),
+        "date": ("Match Date",),
+        "time": ("Kick-off", "Kick off", "Start"),
+        "division": ("Grade", "Age group", "Competition"),
+    }.items()
+    for alias in aliases
+}
 
 
 @dataclass(frozen=True)
@@ -76,7 +92,8 @@ def make_table(
     rename: dict[str, str] | None = None,
 ) -> Table | None:
     """The sheet as a Table (None when it has no non-empty row). Duplicate headers are errors;
-    an unknown header spelled like a known one gets a warning. `rename` maps a header's key to
+    a header in ALIASES stands for its column when the sheet lacks that column by name; an
+    unknown header spelled like a known one gets a warning. `rename` maps a header's key to
     the standard column it stands for; a header already named like a renamed-to column is then
     an ordinary (note) column."""
     rename = rename or {}
@@ -84,6 +101,8 @@ def make_table(
     if not raw.rows:
         return None
     header_row, header_cells = raw.rows[0]
+    present = {name_key(t) for c in header_cells.values() if (t := cell_text(c)) is not None}
+    present |= taken
     by_index: dict[int, Column] = {}
     columns: dict[str, Column] = {}
     for index in sorted(header_cells):
@@ -95,6 +114,8 @@ def make_table(
             key = rename[key]
         elif key in taken:
             key = "~" + key
+        elif ALIASES.get(key) in known and ALIASES[key] not in present:
+            key = ALIASES[key]
         if key in columns:
             first = columns[key]
             report.error(

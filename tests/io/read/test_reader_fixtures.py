@@ -92,9 +92,9 @@ def test_row_needs_a_label_or_both_teams(tmp_path):
 
 
 def test_missing_columns(tmp_path):
-    result = load_book(tmp_path, {"Fixtures": [["Home", "Visitors"], ["Alder", "Birch"]]})
+    result = load_book(tmp_path, {"Fixtures": [["Home", "Guests"], ["Alder", "Birch"]]})
     problem = one(errors(result))
-    assert problem.message == "the sheet has no Away column (columns found: Home, Visitors)"
+    assert problem.message == "the sheet has no Away column (columns found: Home, Guests)"
     assert where(problem) == ("Fixtures", 1, "Away", None)
     result = load_book(tmp_path, {"Fixtures": [["Venue", "Round"], ["Oak Rd", 1]]})
     problem = one(errors(result))
@@ -494,3 +494,22 @@ def test_league_warnings_are_the_warning_problems(tmp_path):
     rows = [HEAD, [None, "Alder", "Birch"], [None, "alder", "Cedar"]]
     result = load_book(tmp_path, {"Fixtures": rows})
     assert result.ok and result.league.warnings == warnings_of(result) != []
+
+
+def test_usual_headers_stand_for_our_columns_and_name_them_in_problems(tmp_path):
+    rows = [["Home Team", "Away Team", "Field", "Age group", "Matchday"],
+            ["Alder", "Birch", "North Field", "U10", 1], ["Cedar", None, "South Field", "U10", 2]]
+    result = load_book(tmp_path, {"Fixtures": rows})
+    fixture = result.league.fixtures[0]
+    assert (fixture.home, fixture.away, fixture.venue, fixture.division, fixture.pin) == (
+        "Alder", "Birch", "North Field", "U10", 1)
+    assert [(p.message, p.row, p.column) for p in result.problems] == [
+        ("'Cedar v ?' has no Away team: give both Home and Away, or a Fixture label", 3,
+         "Away Team")]
+
+
+def test_a_standard_header_wins_over_an_alias_which_stays_a_note(tmp_path):
+    rows = [["Home", "Away", "Home Team"], ["Alder", "Birch", "Alder FC"]]
+    result = load_book(tmp_path, {"Fixtures": rows})
+    assert result.ok and result.league.fixtures[0].home == "Alder"
+    assert result.league.fixtures[0].notes == {"Home Team": "Alder FC"}

@@ -129,7 +129,7 @@ def test_sheets_missing_their_key_columns(tmp_path):
         "Blocked": [["Reason"], ["x"]],
         "Settings": [["Name", "Value"], ["Legs", 2]],
         "Distances": [["From", "To"], ["a", "b"]],
-        "Venues": [["Ground"], ["Oak Rd"]],
+        "Venues": [["Place"], ["Oak Rd"]],
     }
     assert listed(load_book(tmp_path, sheets)) == [
         (
@@ -140,7 +140,7 @@ def test_sheets_missing_their_key_columns(tmp_path):
         ("error", "the sheet needs a Round or a Date column", ("Rounds", 1, None, None)),
         (
             "error",
-            "the sheet has no Venue column (columns found: Ground)",
+            "the sheet has no Venue column (columns found: Place)",
             ("Venues", 1, "Venue", None),
         ),
         ("error", "the sheet needs a Team or a Venue column", ("Blocked", 1, None, None)),
