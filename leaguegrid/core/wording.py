@@ -17,6 +17,9 @@ CAUTION = (
     "schedule against the association's rules (rest between games for juniors, heat, lighting, "
     "travel) and local regulations."
 )
+UNSAVED_QUESTION = ("This league has pins, edits or a schedule that are not saved in a project "
+                    "file. Save them before closing?")
+
 METHODS = {"uniform": "drawn uniformly at random from every valid assignment",
            "search": "found by the rule-aware generator",
            "optimised": "optimised for the fewest breaks, every rule kept",

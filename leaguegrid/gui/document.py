@@ -39,6 +39,7 @@ class LeagueDocument(QObject):
         self.project_path: str | None = None
         self.graph: Any = None  # the working clash graph (networkx), set by the window
         self.undo = QUndoStack(self)
+        self._schedule_saved = True  # the schedule shown is the one last saved (or none)
 
     @property
     def league(self) -> League | None:
@@ -60,6 +61,7 @@ class LeagueDocument(QObject):
         self.schedule = None
         self.selected = None
         self.undo.clear()
+        self._schedule_saved = True
         self.loaded.emit()
 
     def title_name(self) -> str:
@@ -100,7 +102,18 @@ class LeagueDocument(QObject):
 
     def set_schedule(self, schedule: Schedule | None) -> None:
         self.schedule = schedule
+        self._schedule_saved = schedule is None
         self.scheduleChanged.emit()
+
+    @property
+    def unsaved(self) -> bool:
+        """True when edits or a schedule would be lost by closing without saving."""
+        return not self.undo.isClean() or not self._schedule_saved
+
+    def mark_saved(self) -> None:
+        """The project file now holds the edits and the schedule."""
+        self.undo.setClean()
+        self._schedule_saved = True
 
     def project(self, rounds: int | None) -> Project:
         """What a project file of this document holds."""
@@ -115,6 +128,7 @@ class LeagueDocument(QObject):
         if restored.schedule is not None:
             self.set_schedule(restored.schedule)
         self.changed_edits()
+        self.mark_saved()
         return restored.warning
 
     def changed_edits(self) -> None:

@@ -158,7 +158,7 @@ class FileFlows:
             self.stage_label.setText(f"The project could not be saved: {err}")
             return
         self.doc.project_path = path
-        self.doc.undo.setClean()
+        self.doc.mark_saved()
         self._remember(path)
         self.stage_label.setText(f"Project saved to {path}.")
 

@@ -8,10 +8,10 @@ from typing import Any
 
 from PySide6.QtCore import QByteArray, QSettings, QTimer, Signal
 from PySide6.QtGui import QCloseEvent, QDragEnterEvent, QDropEvent
-from PySide6.QtWidgets import QMainWindow, QTabWidget, QWidget
+from PySide6.QtWidgets import QMainWindow, QMessageBox, QTabWidget, QWidget
 
 from leaguegrid import __version__
-from leaguegrid.core.wording import CAUTION
+from leaguegrid.core.wording import CAUTION, UNSAVED_QUESTION
 from leaguegrid.gui import icons, procworker, window_actions
 from leaguegrid.gui.clash_view import ClashGraphView
 from leaguegrid.gui.counts_view import CountsView
@@ -20,7 +20,7 @@ from leaguegrid.gui.edit_flows import EditFlows
 from leaguegrid.gui.file_flows import FileFlows
 from leaguegrid.gui.fixtures_view import FixturesView
 from leaguegrid.gui.import_view import ImportView
-from leaguegrid.gui.notices import APP_NAME, inform, warn
+from leaguegrid.gui.notices import APP_NAME, inform, show_dialog, warn
 from leaguegrid.gui.schedule_view import ScheduleView
 from leaguegrid.gui.whatif_view import WhatIfView
 from leaguegrid.gui.work_flows import WorkFlows
@@ -47,6 +47,7 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, QMainWindow):
         self.last_export: list[str] = []
         self._user_rounds = False
         self._draw_after_count: tuple | None = None  # a Draw asked for while counting
+        self._discarding = False  # the coordinator chose to close without saving
         self.setWindowIcon(icons.app_icon())
         self.setAcceptDrops(True)
         self._build_views()
@@ -113,6 +114,10 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, QMainWindow):
         self.tabs.setCurrentIndex(int(tab) if str(tab).isdigit() else 0)
 
     def closeEvent(self, event: QCloseEvent) -> None:  # noqa: N802
+        if self.doc.unsaved and not self._discarding:
+            event.ignore()  # asked first, in a box that does not block the window
+            self._ask_to_save()
+            return
         self.settings.setValue("window/geometry", self.saveGeometry())
         self.settings.setValue("window/state", self.saveState())
         self.settings.setValue("window/tab", self.tabs.currentIndex())
@@ -120,6 +125,26 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, QMainWindow):
         self.runner.cancel()
         self.runner.wait()
         super().closeEvent(event)
+
+    def _ask_to_save(self) -> None:
+        """Save / Discard / Cancel for edits or a schedule not yet saved, then close."""
+        box = QMessageBox(QMessageBox.Icon.Question, APP_NAME, UNSAVED_QUESTION,
+                          QMessageBox.StandardButton.Save | QMessageBox.StandardButton.Discard
+                          | QMessageBox.StandardButton.Cancel, self)
+        box.setDefaultButton(QMessageBox.StandardButton.Save)
+
+        def answered(_code: int) -> None:
+            choice = box.standardButton(box.clickedButton())
+            if choice == QMessageBox.StandardButton.Save:
+                self.save_project()
+                if not self.doc.unsaved:
+                    self.close()
+            elif choice == QMessageBox.StandardButton.Discard:
+                self._discarding = True
+                self.close()
+
+        box.finished.connect(answered)
+        show_dialog(box)
 
     def _clean_changed(self, _clean: bool) -> None:
         self._update_title()

@@ -367,3 +367,53 @@ def test_usual_spreadsheet_headers_are_understood_without_matching(qtbot, window
     assert window.doc.usable
     assert [(f.home, f.away, f.venue, f.division) for f in window.doc.league.fixtures] == [
         ("Otters", "Herons", "Alder Green", "U9"), ("Wrens", "Badgers", "Alder Green", "U9")]
+
+
+def _answer_unsaved(qtbot, window, button):
+    from PySide6.QtWidgets import QMessageBox
+
+    qtbot.waitUntil(lambda: any(b.isVisible() for b in window.findChildren(QMessageBox)))
+    box = next(b for b in window.findChildren(QMessageBox) if b.isVisible())
+    assert box.text().startswith("This league has pins, edits or a schedule that are not saved")
+    box.button(button).click()
+
+
+def test_closing_with_a_schedule_not_saved_asks_and_cancel_keeps_the_window(qtbot, window,
+                                                                           tmp_path):
+    from PySide6.QtWidgets import QMessageBox
+
+    open_small(qtbot, window, tmp_path)
+    window.act_draw.trigger()
+    wait_idle(qtbot, window)
+    window.act_quit.trigger()
+    assert window.isVisible()
+    _answer_unsaved(qtbot, window, QMessageBox.StandardButton.Cancel)
+    assert window.isVisible() and window.doc.schedule is not None
+    window.act_quit.trigger()
+    _answer_unsaved(qtbot, window, QMessageBox.StandardButton.Discard)
+    qtbot.waitUntil(lambda: not window.isVisible())
+
+
+def test_closing_with_unsaved_work_can_save_it_as_a_project_first(qtbot, window, tmp_path,
+                                                                  monkeypatch):
+    from PySide6.QtWidgets import QFileDialog, QMessageBox
+
+    from leaguegrid.app import project
+
+    open_small(qtbot, window, tmp_path)
+    window.act_draw.trigger()
+    wait_idle(qtbot, window)
+    drawn = dict(window.doc.schedule.assignment)
+    target = tmp_path / f"season{project.SUFFIX}"
+    monkeypatch.setattr(QFileDialog, "getSaveFileName",
+                        staticmethod(lambda *a, **k: (str(target), "")))
+    window.close()
+    _answer_unsaved(qtbot, window, QMessageBox.StandardButton.Save)
+    qtbot.waitUntil(lambda: not window.isVisible())
+    assert project.read_project(str(target)).saved_schedule["assignment"] == drawn
+
+
+def test_closing_with_nothing_unsaved_asks_nothing(qtbot, window, tmp_path):
+    open_small(qtbot, window, tmp_path)
+    window.close()
+    assert not window.isVisible()
