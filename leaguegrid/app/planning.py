@@ -16,10 +16,9 @@ from leaguegrid.io.read.previous import PreviousSchedule
 from leaguegrid.scheduling import score
 from leaguegrid.scheduling.breaks import BreakCount, count_breaks, team_byes
 from leaguegrid.scheduling.check import check_schedule
-from leaguegrid.scheduling.constraints import build_model
 from leaguegrid.scheduling.dates import DatesError, round_dates
 from leaguegrid.scheduling.draw import PlanResult, fresh_seed, plan
-from leaguegrid.scheduling.optimise import breaks_bound, fewer_breaks, holds, timetable_start
+from leaguegrid.scheduling.optimise import breaks_bound, fewer_breaks, timetable_start
 from leaguegrid.scheduling.replan import Move, keep_previous
 from leaguegrid.scheduling.requests import unmet_requests
 from leaguegrid.scheduling.rules import Violation, generator_rules
@@ -88,11 +87,7 @@ def make_schedule(league: League, graph: nx.Graph, rounds: int, seed: int | None
     if draws > 1 and not terms:
         terms = dict.fromkeys(SCORE_TERMS, 1.0)
     job = hooks or engine.Hooks()
-    timetable = None
-    if not uniform and draws == 1:
-        timetable = timetable_start(league, rounds)
-        if timetable is not None and not holds(build_model(league, graph, rounds), timetable):
-            timetable = None
+    timetable = timetable_start(league, rounds) if not uniform and draws == 1 else None
     result = plan(league, graph, rounds, seed, draws=draws, terms=terms,
                   hooks=job.part(0.0, 0.7, share=0.7), given=timetable)
     schedule = result.schedule
@@ -103,18 +98,17 @@ def make_schedule(league: League, graph: nx.Graph, rounds: int, seed: int | None
         return outcome
     if uniform or draws > 1:
         outcome.breaks = count_breaks(league, schedule.assignment)
-        schedule.notes = [*schedule.notes, *request_notes(league, schedule.assignment)]
-        return outcome
-    better = fewer_breaks(result.model, schedule.assignment, seed, job.part(0.7, 1.0))
-    start = (wording.METHODS["timetable"].removeprefix("taken from ")
-             if better.start == "timetable"
-             else f"a schedule {wording.METHODS.get(schedule.method, schedule.method)}")
-    schedule.assignment = better.assignment
-    schedule.method = "optimised"
-    kept = [n for n in schedule.notes if not n.startswith("drawn uniformly")]
-    schedule.notes = [*kept, f"optimised for the fewest breaks from {start}"
-                      + (", stopped early at the budget" if better.stopped else "")]
-    outcome.breaks = better.breaks
+    else:
+        better = fewer_breaks(result.model, schedule.assignment, seed, job.part(0.7, 1.0))
+        start = (wording.METHODS["timetable"].removeprefix("taken from ")
+                 if schedule.method == "timetable"
+                 else f"a schedule {wording.METHODS.get(schedule.method, schedule.method)}")
+        schedule.assignment = better.assignment
+        schedule.method = "optimised"
+        kept = [n for n in schedule.notes if not n.startswith("drawn uniformly")]
+        schedule.notes = [*kept, f"optimised for the fewest breaks from {start}"
+                          + (", stopped early at the budget" if better.stopped else "")]
+        outcome.breaks = better.breaks
     schedule.notes = [*schedule.notes, *request_notes(league, schedule.assignment)]
     return outcome
 
@@ -180,7 +174,6 @@ RULE_OF = {"clashes": "clash", "splits": "split", "ties": "tie", "pins": "pin",
            "venue capacity": "capacity", "max home run": "home run",
            "max away run": "away run", "round balance": "balance", "leg gap": "leg gap",
            "mirrored return half": "mirrored", "byes apart": "byes"}
-
 
 
 def rules_met(league: League, graph: nx.Graph, schedule: Schedule) -> list[tuple[str, bool]]:

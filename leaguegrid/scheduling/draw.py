@@ -22,6 +22,7 @@ from leaguegrid import engine
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import plural
 from leaguegrid.scheduling.constraints import CountingModel, build_model
+from leaguegrid.scheduling.optimise import holds
 from leaguegrid.scheduling.rules import check_generator, prove_impossible
 from leaguegrid.scheduling.score import BestOf, ScoreCard, best_of
 from leaguegrid.scheduling.search import search
@@ -110,6 +111,8 @@ def _plan(league: League, model: CountingModel, seed: int, draws: int,
     """plan() on a counting model already built."""
     rounds = model.rounds
     result = PlanResult("impossible", seed, model=model)
+    if given is not None and not holds(model, given):
+        given = None
     if model.contradictions:
         result.reasons = list(model.contradictions)
         return result

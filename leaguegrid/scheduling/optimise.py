@@ -35,7 +35,6 @@ class Optimised:
     assignment: dict[str, int]
     breaks: BreakCount
     bound: int | None  # a proven lower bound on the breaks, None when none is known
-    start: str  # "timetable" (the generated round robin) or "schedule" (the one given)
     steps: int
     stopped: bool = False  # the budget or Cancel ended the search before its last step
 
@@ -118,14 +117,12 @@ def holds(model: CountingModel, assignment: dict[str, int]) -> bool:
 def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
                  hooks: engine.Hooks | None = None, steps: int = STEPS,
                  keep: dict[str, int] | None = None) -> Optimised:
-    """The best schedule the local search finds from the timetable (when it holds) or from
-    `start` (a valid schedule), by breaks; deterministic for a given seed and `steps`. With
+    """The best schedule the local search finds from `start` (a valid schedule: the generated
+    timetable when it holds), by breaks; deterministic for a given seed and `steps`. With
     `keep` (a previous schedule), fixtures moved from it count first, then requests, then
-    breaks, and the search starts from `start`."""
+    breaks."""
     league, rounds = model.league, model.rounds
-    timetable = None if keep is not None else timetable_start(league, rounds)
-    origin = "timetable" if timetable is not None and holds(model, timetable) else "schedule"
-    current = dict(timetable if origin == "timetable" else start)
+    current = dict(start)
     bound = breaks_bound(league, rounds)
     best, best_breaks = dict(current), count_breaks(league, current)
     weight = len(league.teams) + 1  # an unmet request weighs more than any team's breaks
@@ -170,7 +167,7 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
             current, cost = trial, new
             if (penalty, counted.total) < (best_penalty, best_breaks.total):
                 best, best_breaks, best_penalty = trial, counted, penalty
-    return Optimised(best, best_breaks, bound, origin, done, stopped)
+    return Optimised(best, best_breaks, bound, done, stopped)
 
 
 def _mirrored(model: CountingModel, assignment: dict[str, int], moved: dict[str, int],
