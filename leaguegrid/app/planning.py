@@ -171,8 +171,8 @@ def replan(league: League, graph: nx.Graph, rounds: int, previous: dict[str, int
 
 RULE_OF = {"clashes": "clash", "splits": "split", "ties": "tie", "pins": "pin",
            "played": "played", "blocked": "blocked", "return half": "return half",
-           "venue capacity": "capacity", "max home run": "home run",
-           "max away run": "away run", "round balance": "balance", "leg gap": "leg gap",
+           "venue capacity": "capacity", "most home games in a row": "home run",
+           "most away games in a row": "away run", "round balance": "balance", "leg gap": "leg gap",
            "mirrored return half": "mirrored", "byes apart": "byes"}
 
 

@@ -20,7 +20,7 @@ def _key(text: str) -> str:
 def build_clash_graph(league: League) -> nx.Graph:
     """Fixtures clash when they share a team (Home/Away in Shared), a venue or pitch (Venue in
     Shared; a venue with several pitches and no pitch given is left to the capacity rule),
-    an equal value of another Shared column, a Clashes row, or a Splits row."""
+    an equal value of another Shared column, a Clashes row, or an Apart row."""
     graph = nx.Graph()
     for f in league.fixtures:
         graph.add_node(
@@ -160,5 +160,5 @@ def describe(reason: Reason) -> str:
     if reason.kind == "clash":
         return f"Clashes row {reason.row}: {reason.key}" if reason.row else reason.key
     if reason.kind == "split":
-        return f"Splits row {reason.row}: {reason.key}" if reason.row else reason.key
+        return f"Apart row {reason.row}: {reason.key}" if reason.row else reason.key
     return str(reason)

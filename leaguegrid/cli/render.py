@@ -15,6 +15,8 @@ from leaguegrid.app.planning import PlanOutcome, requests_unmet
 from leaguegrid.app.whatif import WhatIfOutcome
 from leaguegrid.core.model import League, Problem
 from leaguegrid.core.wording import (
+    REASON_KINDS,
+    SCHEDULES_EXPLAINED,
     count_text,
     counted_note,
     plural,
@@ -132,15 +134,17 @@ def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool
     print(f"Chromatic polynomial: {poly if poly is not None else 'not computed within the budget'}",
           file=out)
     if report.pinned:
-        print("(The polynomial and the groupings are of the clash graph itself; assignments and "
-              "every-round-used respect the pins, ties, played and blocked rounds.)", file=out)
+        print("(The polynomial and the groupings are of the clash graph itself: they ignore "
+              "pins; the schedules respect the pins, Together, played and blocked rounds.)",
+              file=out)
     for note in report.notes:
         print(f"Note: {note}", file=out)
     for line in (counted_note(report.rules_counted), rules_note(report.rules_generator)):
         if line:
             print(line, file=out)
     print("", file=out)
-    print("Rounds | Assignments | Every round used | Groupings", file=out)
+    print(SCHEDULES_EXPLAINED, file=out)
+    print("Rounds | Schedules | Using every round | Groupings", file=out)
     for row in report.rows:
         cells = [count_text(v) for v in (row.assignments, row.all_rounds_used, row.groupings)]
         print(f"{row.rounds:>6} | " + " | ".join(cells), file=out)
@@ -168,7 +172,7 @@ def print_plan(outcome: PlanOutcome, league: League, out: TextIO, err: TextIO) -
             print(f"  {reason}", file=err)
         return
     if result.assignments is not None:
-        print(f"Valid assignments for {plural(k, 'round')}: {count_text(result.assignments)} "
+        print(f"Valid schedules for {plural(k, 'round')}: {count_text(result.assignments)} "
               "(exact)", file=out)
     if outcome.breaks_line:
         print(outcome.breaks_line, file=out)
@@ -256,28 +260,28 @@ def print_whatif(outcome: WhatIfOutcome, league: League, out: TextIO, as_json: b
     k = report.rounds
     fewest = report.min_rounds if report.min_rounds is not None else "unknown"
     print(f"{league.name}, {plural(k, 'round')}: {count_text(report.assignments)} valid "
-          f"assignments; fewest rounds {fewest}", file=out)
+          f"schedules; fewest rounds {fewest}", file=out)
     if report.reasons:
         print("\nWaiving one clash reason (every clash that exists only because of it):",
               file=out)
-        print("Schedules if waived | Assignments if waived | Fewest rounds if waived | "
+        print("Schedules gained | Schedules if waived | Fewest rounds if waived | "
               "Clashes | Reason", file=out)
         for w in report.reasons:
             more = ("not computed" if w.assignments_if_waived is None or report.assignments is None
                     else times_text(w.assignments_if_waived, report.assignments))
             if_waived = w.min_rounds_if_waived if w.min_rounds_if_waived is not None else "?"
             print(f"{more} | {count_text(w.assignments_if_waived)} | {if_waived} | "
-                  f"{len(w.edges)} | {w.reason} ({w.kind})", file=out)
+                  f"{len(w.edges)} | {w.reason} ({REASON_KINDS.get(w.kind, w.kind)})", file=out)
     if report.added is not None:
         a = report.added
         fewest_added = a.min_rounds_if_added if a.min_rounds_if_added is not None else "unknown"
         print(f"\nAdding a clash between {a.first} and {a.second} "
               f"({plural(len(a.edges), 'new clashing pair')}): "
-              f"{count_text(a.assignments_if_added)} assignments remain, "
+              f"{count_text(a.assignments_if_added)} schedules remain, "
               f"{count_text(a.loss)} fewer; fewest rounds {fewest_added}", file=out)
     for change in outcome.changes:
         print(f"\nIf {change.change}: {count_text(change.assignments_before)} -> "
-              f"{count_text(change.assignments_after)} valid assignments for "
+              f"{count_text(change.assignments_after)} valid schedules for "
               f"{plural(change.rounds, 'round')}; fewest rounds {change.min_rounds_before} -> "
               f"{change.min_rounds_after}", file=out)
         if change.fixtures_added:

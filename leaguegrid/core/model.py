@@ -45,7 +45,7 @@ class Reason:
 
     kind: Literal["team", "venue", "shared", "clash", "split"]
     key: str  # team name, venue key, "Column=value", or the Clashes row's Reason text
-    row: int | None = None  # Clashes/Splits sheet row, for kind "clash"/"split"
+    row: int | None = None  # Clashes/Apart sheet row, for kind "clash"/"split"
 
     def __str__(self) -> str:
         if self.kind in ("team", "venue"):
@@ -111,7 +111,7 @@ class ClashRow:
 
 @dataclass
 class Tie:
-    """Two fixtures that must share a round (Ties sheet)."""
+    """Two fixtures that must share a round (Together sheet)."""
 
     first: str
     second: str

@@ -5,6 +5,7 @@ for huge ones, estimates always labelled as estimates, plurals ("1 round", "2 ro
 from __future__ import annotations
 
 import math
+from fractions import Fraction
 from typing import Any
 
 from leaguegrid.core.model import Schedule
@@ -114,15 +115,46 @@ def cell_text(value: Any) -> str:
 
 
 def times_text(after: int, before: int) -> str:
-    """How a count changes, in words: '3.2 times as many', 'the same number', 'none left'."""
+    """How a number of schedules changes, in words: '3.2 × as many schedules', 'no change',
+    'none left'."""
     if before == 0:
-        return "none before" if after == 0 else "some where there were none"
+        return "no change (none)" if after == 0 else "some where there were none"
     if after == before:
-        return "the same number"
+        return "no change"
     if after == 0:
         return "none left"
-    ratio = after / before
-    return f"{ratio:.3g} times as many" if ratio >= 1 else f"{1 / ratio:.3g} times fewer"
+    more = after >= before
+    factor = Fraction(after, before) if more else Fraction(before, after)
+    word = "as many" if more else "fewer"
+    if factor >= 1000:  # '4.17 × 10¹⁸ times as many schedules'
+        return f"{scientific(int(factor))} times {word} schedules"
+    return f"{float(factor):.3g} × {word} schedules"
+
+
+def ratio_of(after: int | None, before: int | None) -> float | None:
+    """after / before as a float (None when either is unknown, before is 0, or it overflows)."""
+    if after is None or before is None or before == 0:
+        return None
+    try:
+        return after / before
+    except OverflowError:
+        return None
+
+
+def gained_text(gain: int | None) -> str:
+    """The exact number of schedules gained, signed: '+3,200 schedules', '-12 schedules'."""
+    if gain is None:
+        return "not computed"
+    sign = "+" if gain > 0 else ("-" if gain < 0 else "")
+    return f"{sign}{grouped(abs(gain))} " + ("schedule" if abs(gain) == 1 else "schedules")
+
+
+SCHEDULES_EXPLAINED = ("Schedules: ways to give each fixture one of K rounds, no clash in a "
+                       "round; groupings: rounds' order ignored.")
+
+# what a clash reason's kind is, in words
+REASON_KINDS = {"team": "team", "venue": "venue", "shared": "Clash on column",
+                "clash": "Clashes row", "split": "Apart row"}
 
 
 def log10_of(value: Any) -> float | None:

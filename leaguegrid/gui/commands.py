@@ -60,7 +60,7 @@ class TieCommand(_PairCommand):
     edits_field = "ties"
 
     def __init__(self, doc: LeagueDocument, first: str, second: str) -> None:
-        super().__init__(doc, (first, second), f"Tie {first} with {second}")
+        super().__init__(doc, (first, second), f"Keep {first} together with {second}")
 
 
 class MoveCommand(QUndoCommand):

@@ -115,7 +115,7 @@ class CountPlot(QWidget):
         painter.drawRect(area)
         painter.drawText(QRectF(area.left(), area.bottom() + 4 + fm.height(), area.width(),
                                 fm.height()), Qt.AlignmentFlag.AlignHCenter,
-                         "rounds (assignments on a log scale)")
+                         "rounds (valid schedules on a log scale)")
 
     def _fewest_marker(self, painter: QPainter, area: QRectF, at, y0: int) -> None:
         if self.fewest is None:

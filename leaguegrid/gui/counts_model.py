@@ -10,13 +10,13 @@ from leaguegrid.app.counting import CountReport, CountRow
 from leaguegrid.core import wording
 from leaguegrid.gui.table_model import RIGHT, ReadOnlyTable, Role, bold_font
 
-COLUMNS = ("Rounds", "Assignments", "All rounds used", "Groupings")
+COLUMNS = ("Rounds", "Schedules", "Using every round", "Groupings")
 FIELDS = ("rounds", "assignments", "all_rounds_used", "groupings")
 TIPS = (
     "K, the number of rounds available",
     "Ways to give every fixture a round in 1..K with no clash inside a round (pins respected; "
     "rounds may stay empty)",
-    "Assignments in which every one of the K rounds holds a fixture",
+    "Schedules in which every one of the K rounds holds a fixture",
     "Ways to split the fixtures into exactly K non-empty clash-free rounds, the order of the "
     "rounds not mattering (clash graph without pins)",
 )

@@ -107,8 +107,9 @@ class CountsView(QWidget):
         parts = [f"{wording.plural(report.fixtures, 'fixture')}, "
                  f"{wording.plural(report.clashes, 'clash', 'clashes')}, {fewest}."]
         if report.pinned:
-            parts.append("Pins, ties and blocked rounds are respected in the assignments; the "
-                         "polynomial and the groupings describe the clash graph itself.")
+            parts.append("Pins, Together and blocked rounds are respected in the schedules; the "
+                         "polynomial and the groupings describe the clash graph itself and "
+                         "ignore pins, so groupings can exceed schedules.")
         if report.cancelled:
             parts.append("Stopped before the end: what was not finished shows as "
                          f"“{wording.NOT_COMPUTED}”.")

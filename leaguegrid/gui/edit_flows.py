@@ -57,7 +57,7 @@ class EditFlows:
         return pick_pair(self, title, [f.label for f in lg.fixtures], partner, self.doc.selected)
 
     def tie_selected(self: Any) -> None:
-        pair = self._ask_pair("Tie fixtures", pick_tie_partner)
+        pair = self._ask_pair("Play together", pick_tie_partner)
         if pair:
             self.tie_fixtures(*pair)
 

@@ -50,7 +50,7 @@ class FixturesModel(ReadOnlyTable):
 
     def text(self, f: Fixture, column: int) -> str:
         if column == 0:
-            return f"{f.label}  (tied)" if f.label in self.tied else f.label
+            return f"{f.label}  (together)" if f.label in self.tied else f.label
         if column == 6:
             pin = self.pins.get(f.label)
             return "" if pin is None else str(pin) + (" (played)" if f.played else "")
@@ -65,7 +65,7 @@ class FixturesModel(ReadOnlyTable):
         if role == Role.DisplayRole:
             return self.text(f, column)
         if role == Role.ToolTipRole and column == 0 and f.label in self.tied:
-            return "Tied with " + ", ".join(self.tied[f.label])
+            return "Together with " + ", ".join(self.tied[f.label])
         if role == Role.FontRole and column == 0 and f.label in self.clashes:
             return bold_font()
         if role == Role.UserRole:

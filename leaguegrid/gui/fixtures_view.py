@@ -20,7 +20,8 @@ class FixturesView(QWidget):
     def __init__(self, doc: LeagueDocument, parent: QWidget | None = None) -> None:
         super().__init__(parent)
         self.doc = doc
-        self.note = QLabel("Right-click a fixture to pin it to a round or tie it to another.")
+        self.note = QLabel("Right-click a fixture to pin it to a round or to play it together "
+                           "with another.")
         self.model = FixturesModel(self)
         self.table = row_view("fixturesTable", self.model)
         self.table.horizontalHeader().setSectionResizeMode(
@@ -88,7 +89,7 @@ class FixturesView(QWidget):
         pin_action = menu.addAction("Pin to a round…")
         unpin_action = menu.addAction("Unpin")
         unpin_action.setEnabled(self.doc.pin_of(label) is not None)
-        tie_action = menu.addAction("Tie with…")
+        tie_action = menu.addAction("Play together with…")
         chosen = menu.exec(self.table.viewport().mapToGlobal(pos))
         if chosen is pin_action:
             k = ask_round(self, "Pin fixture", label, self.doc.pin_of(label) or 1)

@@ -26,7 +26,7 @@ def pick_fixture(parent: QWidget, title: str, prompt: str,
 
 def pick_tie_partner(parent: QWidget, label: str, labels: Sequence[str]) -> str | None:
     """The fixture to share a round with `label`, or None on Cancel."""
-    return pick_fixture(parent, "Tie fixtures", f"Fixture to share a round with {label}:",
+    return pick_fixture(parent, "Play together", f"Fixture to share a round with {label}:",
                         labels)
 
 

@@ -9,8 +9,18 @@ from leaguegrid.core import wording
 from leaguegrid.gui.table_model import RIGHT, ReadOnlyTable, Role
 from leaguegrid.scheduling.whatif import Waived
 
-COLUMNS = ("Clash reason", "Kind", "Clashes it makes", "Assignments if waived", "Gain",
-           "Fewest rounds if waived", "Waived now")
+COLUMNS = ("Clash reason", "Kind", "Clashes it makes", "Schedules if waived",
+           "Schedules gained", "Fewest rounds if waived", "Waived now")
+TIPS = (
+    "What makes these fixtures clash: a venue, a Clash on column's value, a Clashes or Apart "
+    "row (a team's own clashes are never offered: a team cannot play twice in a round)",
+    "Where the clash comes from",
+    "Pairs of fixtures that clash only because of this reason",
+    "Valid schedules for the rounds asked if this reason were waived",
+    "How many times as many schedules waiving it gives (exact number on hover)",
+    "The fewest rounds that would work if this reason were waived",
+    "Waived in this window now (the workbook is unchanged)",
+)
 WAIVED_COLUMN = len(COLUMNS) - 1
 EDGES_IN_TIP = 30  # clashes listed in a reason's tooltip
 
@@ -19,7 +29,7 @@ class ReasonsModel(ReadOnlyTable):
     """Ranked reasons, and the texts of those waived now (the last column)."""
 
     def __init__(self, parent: Any = None) -> None:
-        super().__init__(COLUMNS, parent=parent)
+        super().__init__(COLUMNS, TIPS, parent)
         self.rows: list[Waived] = []
         self.waived: set[str] = set()
 
@@ -38,20 +48,30 @@ class ReasonsModel(ReadOnlyTable):
 
     def cell(self, row: int, column: int, role: int) -> Any:
         w = self.rows[row]
-        counts = {3: w.assignments_if_waived, 4: w.gain}
         if role == Role.DisplayRole:
-            if column in counts:
-                return wording.cell_text(counts[column])
-            return (w.reason, w.kind, str(len(w.edges)),
+            if column == 3:
+                return wording.cell_text(w.assignments_if_waived)
+            if column == 4:
+                return self._gained(w)
+            return (w.reason, wording.REASON_KINDS.get(w.kind, w.kind), str(len(w.edges)),
                     None, None,
                     "" if w.min_rounds_if_waived is None else str(w.min_rounds_if_waived),
                     "yes" if w.reason in self.waived else "")[column]
         if role == Role.ToolTipRole:
-            if column in counts:
-                return wording.full_text(counts[column])
+            if column == 3:
+                return wording.full_text(w.assignments_if_waived)
+            if column == 4:
+                return wording.gained_text(w.gain)
             if column == 0:
                 return "\n".join(f"{a} – {b}" for a, b in w.edges[:EDGES_IN_TIP])
             return None
-        if role == Role.TextAlignmentRole and column in counts:
+        if role == Role.TextAlignmentRole and column in (3, 4):
             return RIGHT
         return None  # no UserRole: Qt's variants hold 64-bit ints; exact counts are longer
+
+    @staticmethod
+    def _gained(w: Waived) -> str:
+        """'3.2 × as many schedules' (the schedules now are those if waived less the gain)."""
+        if w.assignments_if_waived is None or w.gain is None:
+            return "" if w.reason and not w.edges else "not computed"
+        return wording.times_text(w.assignments_if_waived, w.assignments_if_waived - w.gain)

@@ -154,7 +154,7 @@ class ScheduleView(QWidget):
         pin = menu.addAction(f"Pin to round {round_}")
         unpin = menu.addAction("Unpin")
         unpin.setEnabled(self.doc.pin_of(label) is not None)
-        tie = menu.addAction("Tie with…")
+        tie = menu.addAction("Play together with…")
         move = menu.addAction("Move to round…")
         chosen = menu.exec(where)
         if chosen is pin:

@@ -83,10 +83,10 @@ class WhatIfView(QWidget):
                 rows.append(Waived(str(reason), reason.kind, [], None, None, None))
         base = wording.cell_text(result.assignments)
         self.summary.setText(
-            f"For {wording.plural(k, 'round')}: {base} assignments now, fewest rounds "
+            f"For {wording.plural(k, 'round')}: {base} valid schedules now, fewest rounds "
             f"{result.min_rounds}. "
-            "Each row: the assignments if that reason were waived (every clash that exists only "
-            "because of it removed) and the gain. Ranked by gain.")
+            "Each row: the schedules if that reason were waived (every clash that exists only "
+            "because of it removed) and how many times as many that is. Most gained first.")
         self.model.set_rows(rows, self._waived_texts())
         self._show_state()
 

@@ -64,7 +64,7 @@ class ScheduleChecker:
         for t in self.model.league.ties:
             a, b = assignment.get(t.first), assignment.get(t.second)
             if a is not None and b is not None and a != b:
-                row = f" (Ties row {t.row})" if t.row is not None else ""
+                row = f" (Together row {t.row})" if t.row is not None else ""
                 out.append(Violation(
                     "tie",
                     f"{t.first} and {t.second} must share a round{row} but are in rounds "

@@ -3,7 +3,7 @@
 The engine counts maps of a graph's nodes to rounds 1..K with no clash inside a round, pins
 and per-node excluded rounds respected. A league becomes such a graph exactly:
 - splits are clash edges of their own;
-- tied fixtures (Ties sheet: they must share a round) are merged into one node, named by the
+- tied fixtures (Together sheet: they must share a round) are merged into one node, named by the
   first of them in league order; a tie between clashing fixtures is a contradiction;
 - pins and played fixtures (frozen in the round they were played) pin their node;
 - Blocked rows exclude rounds: a blocked team excludes the round for every fixture of that
@@ -124,10 +124,10 @@ def with_splits(league: League, graph: nx.Graph) -> nx.Graph:
     for u, v, data in graph.edges(data=True):
         g.add_edge(u, v, reasons=list(data.get("reasons", [])))
     for s in league.splits:
-        _known(league, s.first, "Splits", s.row)
-        _known(league, s.second, "Splits", s.row)
+        _known(league, s.first, "Apart", s.row)
+        _known(league, s.second, "Apart", s.row)
         if s.first == s.second:
-            raise ValueError(f"split row {s.row} names {s.first!r} on both sides")
+            raise ValueError(f"Apart row {s.row} names {s.first!r} on both sides")
         reason = Reason("split", s.reason, s.row)
         if g.has_edge(s.first, s.second):
             if reason not in g.edges[s.first, s.second]["reasons"]:
@@ -149,7 +149,8 @@ def reasons_text(reasons: list[Reason]) -> str:
 
 
 def tie_groups(league: League) -> tuple[dict[str, str], dict[str, tuple[str, ...]]]:
-    """Union the Ties pairs: fixture label -> node (first tied label in league order), members."""
+    """Union the Together pairs: fixture label -> node (first such label in league order),
+    members."""
     order = {f.label: i for i, f in enumerate(league.fixtures)}
     parent = {lab: lab for lab in order}
 
@@ -160,8 +161,8 @@ def tie_groups(league: League) -> tuple[dict[str, str], dict[str, tuple[str, ...
         return x
 
     for t in league.ties:
-        _known(league, t.first, "Ties", t.row)
-        _known(league, t.second, "Ties", t.row)
+        _known(league, t.first, "Together", t.row)
+        _known(league, t.second, "Together", t.row)
         a, b = find(t.first), find(t.second)
         if a != b:
             a, b = sorted((a, b), key=order.__getitem__)
@@ -236,7 +237,7 @@ def model_from_clashes(
         pinned = [(lab, fixed_round[lab]) for lab in labs if lab in fixed_round]
         if len({r for _, r in pinned}) > 1:
             shown = ", ".join(f"{lab} ({fixed[lab]})" for lab, _ in pinned)
-            contradictions.append(f"tied fixtures must share a round, but {shown}")
+            contradictions.append(f"fixtures kept together must share a round, but {shown}")
         elif pinned:
             pins[node] = pinned[0][1]
         excl = frozenset(r for lab in labs for r in blocks.get(lab, {}))
@@ -294,7 +295,8 @@ def _fixed_contradictions(
                 continue
             for lab in labs:
                 if p in blocks.get(lab, {}):
-                    how = fixed[lab] if lab == source else f"tied to {source}, {fixed[source]}"
+                    how = (fixed[lab] if lab == source
+                           else f"together with {source}, {fixed[source]}")
                     out.append(f"{lab} is {how}, but {blocks[lab][p]}")
         elif rounds >= 1:
             free = set(range(1, rounds + 1))
@@ -332,9 +334,9 @@ def _loop_text(
     league: League, node_of: dict[str, str], u: str, v: str, reasons: list[Reason]
 ) -> str:
     rows = [t.row for t in league.ties if t.row is not None and node_of[t.first] == node_of[u]]
-    where = f" (Ties row {', '.join(str(r) for r in sorted(set(rows)))})" if rows else ""
+    where = f" (Together row {', '.join(str(r) for r in sorted(set(rows)))})" if rows else ""
     return (
-        f"{u} and {v} are tied to one round{where} but they clash: {reasons_text(reasons)}"
+        f"{u} and {v} must be played together{where} but they clash: {reasons_text(reasons)}"
     )
 
 
@@ -343,10 +345,11 @@ def counted_rules(league: League, clashes: nx.Graph, half: int | None, rounds: i
     pairs = plural(clashes.number_of_edges(), "pair", "pairs")
     out = [f"clashes: {pairs} of fixtures never share a round"]
     if league.splits:
-        out.append(f"splits: {plural(len(league.splits), 'pair', 'pairs')} kept apart by hand "
+        out.append(f"apart: {plural(len(league.splits), 'pair', 'pairs')} kept apart by hand "
                    "(counted as clashes)")
     if league.ties:
-        out.append(f"ties: {plural(len(league.ties), 'pair', 'pairs')} of fixtures share a round")
+        out.append(f"together: {plural(len(league.ties), 'pair', 'pairs')} of fixtures share "
+                   "a round")
     pinned = sum(1 for f in league.fixtures if f.pin is not None and not f.played)
     played = sum(1 for f in league.fixtures if f.pin is not None and f.played)
     if pinned:

@@ -230,7 +230,7 @@ def _finish(
         notes.append(f"best of {len(schedules)} schedules by {', '.join(terms)} "
                      f"(schedule {best.index + 1})")
     elif method == "uniform":
-        notes.append(f"drawn uniformly from all {result.assignments:,} valid assignments"
+        notes.append(f"drawn uniformly from all {result.assignments:,} valid schedules"
                      + (" and kept as the first to meet every rule"
                         if model.generator.active else ""))
     chosen.notes = [*notes, *model.notes]

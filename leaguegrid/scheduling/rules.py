@@ -3,7 +3,7 @@
 - venue capacity: a venue of the Venues sheet with Pitches N > 1, where some fixture gives no
   pitch (no Pitch column), hosts at most N fixtures a round; the clash graph has no venue
   edges there (a fixture that names a pitch still clashes with that pitch's fixtures);
-- max home run / max away run: a team's fixtures in round order (its Home/Away column) hold no
+- most home / away games in a row: a team's fixtures in round order (its Home/Away column) hold no
   more than that many home (away) fixtures in a row; a round without a fixture for the team (a
   bye) neither breaks nor extends a run;
 - round balance: over all K rounds, empty ones included, the fullest and emptiest round differ
@@ -92,8 +92,9 @@ class GeneratorRules:
     @staticmethod
     def title(name: str) -> str:
         """The rule's name as a coordinator reads it: "capacity" -> "venue capacity"."""
-        return {"capacity": "venue capacity", "home run": "max home run",
-                "away run": "max away run", "balance": "round balance", "leg gap": "leg gap",
+        return {"capacity": "venue capacity", "home run": "most home games in a row",
+                "away run": "most away games in a row", "balance": "round balance",
+                "leg gap": "leg gap",
                 "mirrored": "mirrored return half", "byes": "byes apart"}[name]
 
     @property
@@ -122,11 +123,13 @@ class GeneratorRules:
         ]
         if self.max_home_run is not None:
             out.append(
-                f"max home run: no team plays more than {self.max_home_run} home fixtures in a row"
+                f"most home games in a row: no team plays more than "
+                f"{plural(self.max_home_run, 'home fixture', 'home fixtures')} in a row"
             )
         if self.max_away_run is not None:
             out.append(
-                f"max away run: no team plays more than {self.max_away_run} away fixtures in a row"
+                f"most away games in a row: no team plays more than "
+                f"{plural(self.max_away_run, 'away fixture', 'away fixtures')} in a row"
             )
         if self.round_balance is not None:
             out.append(
@@ -276,8 +279,9 @@ def check_runs(
                 out.append(
                     Violation(
                         f"{side} run",
-                        f"team {team} plays {len(run)} {side} fixtures in a row (rounds "
-                        f"{_rounds_text(rounds)}); Max {side} run is {limit}",
+                        f"team {team} plays "
+                        f"{plural(len(run), side + ' fixture', side + ' fixtures')} in a row "
+                        f"(rounds {_rounds_text(rounds)}); Most {side} games in a row is {limit}",
                         tuple(lab for _, lab in run),
                         tuple(rounds),
                     )
@@ -411,7 +415,8 @@ def prove_impossible(
             other = len(sides) - mine
             if mine > (other + 1) * limit:
                 out.append(
-                    f"max {side} run: team {team} has {mine} {side} fixtures and {other} "
+                    f"most {side} games in a row: team {team} has {mine} {side} fixtures and "
+                    f"{other} "
                     f"{'away' if side == 'home' else 'home'}, so some run of {side} fixtures "
                     f"is longer than {limit}"
                 )

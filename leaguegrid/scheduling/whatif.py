@@ -22,6 +22,7 @@ import networkx as nx
 from leaguegrid import engine
 from leaguegrid.core.model import Blocked, Fixture, League, Reason
 from leaguegrid.core.names import name_key
+from leaguegrid.core.wording import ratio_of
 from leaguegrid.scheduling.constraints import CountingModel, build_model
 
 Edge = tuple[str, str]
@@ -38,6 +39,7 @@ class Waived:
     assignments_if_waived: int | None  # None when not computed within the budget
     gain: int | None
     min_rounds_if_waived: int | None
+    ratio: float | None = None  # schedules if waived / schedules now
 
     def to_json(self) -> dict:
         return {
@@ -46,6 +48,7 @@ class Waived:
             "edges": [list(e) for e in self.edges],
             "assignments_if_waived": self.assignments_if_waived,
             "gain": self.gain,
+            "ratio": self.ratio,
             "min_rounds_if_waived": self.min_rounds_if_waived,
         }
 
@@ -206,7 +209,9 @@ def waive_all(
     sole = sole_edges(model.clashes)
     out: list[Waived] = []
     complete = True
-    items = sorted(sole.items(), key=lambda kv: str(kv[0]))
+    # a team's own clashes are not offered: a team can never play twice in one round
+    offered = ((r, e) for r, e in sole.items() if r.kind != "team")
+    items = sorted(offered, key=lambda kv: str(kv[0]))
     for i, (reason, edges) in enumerate(items):
         h = hooks(0.1 + 0.9 * i / len(items), 0.1 + 0.9 * (i + 1) / len(items))
         entry = Waived(str(reason), reason.kind, edges, None, None, None)
@@ -218,6 +223,7 @@ def waive_all(
             g.remove_edges_from(edges)
             entry.assignments_if_waived = count_variant(model, g, base, h)
             entry.gain = entry.assignments_if_waived - base
+            entry.ratio = ratio_of(entry.assignments_if_waived, base)
             if min_rounds:
                 entry.min_rounds_if_waived = _fewest_after(
                     model, model.with_clashes(g), base_min, h, removed=True)

@@ -30,10 +30,14 @@ def test_an_estimate_always_says_so() -> None:
 
 
 def test_changes_read_as_times_as_many() -> None:
-    assert wording.times_text(3_200_000_000, 1_000_000_000) == "3.2 times as many"
-    assert wording.times_text(250, 1000) == "4 times fewer"
-    assert wording.times_text(7, 7) == "the same number"
+    """Issue 12: what-if as a ratio ("3.2 × as many schedules", "no change")."""
+    assert wording.times_text(3_200_000_000, 1_000_000_000) == "3.2 × as many schedules"
+    assert wording.times_text(250, 1000) == "4 × fewer schedules"
+    assert wording.times_text(7, 7) == "no change"
     assert wording.times_text(0, 7) == "none left"
+    assert wording.gained_text(2_200_000_000) == "+2,200,000,000 schedules"
+    assert wording.gained_text(1) == "+1 schedule"
+    assert wording.gained_text(0) == "0 schedules"
 
 
 def test_a_round_reads_its_date_and_time_as_one() -> None:

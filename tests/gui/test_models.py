@@ -56,7 +56,7 @@ def test_counts_model_shows_the_triangles_counts(qtbot):
     assert model.values()[1] == {"rounds": 4, "assignments": 24, "all_rounds_used": 0,
                                  "groupings": 0}
     assert model.headerData(2, Qt.Orientation.Horizontal, TIP) == (
-        "Assignments in which every one of the K rounds holds a fixture")
+        "Schedules in which every one of the K rounds holds a fixture")
 
 
 def test_counts_model_shows_long_counts_short_and_every_digit_in_the_tooltip(qtbot):
@@ -91,8 +91,8 @@ def test_fixtures_model_shows_pins_ties_rounds_and_clashes(qtbot):
     assert texts(model) == [
         ["Otters v Herons", "Otters", "Herons", "Alder Green", "2", "U11", "2 (played)", "2",
          ""],
-        ["Wrens v Badgers  (tied)", "Wrens", "Badgers", "", "", "", "", "", ""]]
-    assert model.index(1, 0).data(TIP) == "Tied with Otters v Herons"
+        ["Wrens v Badgers  (together)", "Wrens", "Badgers", "", "", "", "", "", ""]]
+    assert model.index(1, 0).data(TIP) == "Together with Otters v Herons"
     assert model.index(1, 4).data(USER) == "Wrens v Badgers"
     with qtbot.waitSignal(model.dataChanged):
         model.set_clashes({"Wrens v Badgers": [Reason("team", "Wrens"),
@@ -109,10 +109,10 @@ def test_reasons_model_ranks_and_marks_what_is_waived(qtbot):
     model = ReasonsModel()
     model.set_rows(rows, set())
     assert texts(model) == [
-        ["team Herons", "team", "2", "1.00 × 10²⁰ (21 digits)", "1.00 × 10²⁰ (20 digits)", "2",
-         ""],
-        ["venue Millbrook", "venue", "1", "48", "24", "", ""]]
-    assert model.index(0, 4).data(TIP) == "99,999,999,999,999,999,976"
+        ["team Herons", "team", "2", "1.00 × 10²⁰ (21 digits)",
+         "4.17 × 10¹⁸ times as many schedules", "2", ""],
+        ["venue Millbrook", "venue", "1", "48", "2 × as many schedules", "", ""]]
+    assert model.index(0, 4).data(TIP) == "+99,999,999,999,999,999,976 schedules"
     assert model.index(0, 0).data(TIP) == "A – B\nA – C"
     with qtbot.waitSignal(model.dataChanged) as changed:
         model.set_waived({"venue Millbrook"})

@@ -72,7 +72,7 @@ def test_tie_merges_two_fixtures_in_the_counts(qtbot, window, tmp_path):
     wait_idle(qtbot, window)
     merged = nx.contracted_nodes(graph, "Otters v Badgers", "Herons v Wrens", self_loops=False)
     assert shown(window, 5) == engine_count(merged, 5, {"Otters v Badgers": 1})
-    assert "(tied)" in window.fixtures_view.model.index(
+    assert "(together)" in window.fixtures_view.model.index(
         window.fixtures_view.rows["Herons v Wrens"], 0).data()
     window.act_undo.trigger()
     wait_idle(qtbot, window)
@@ -101,8 +101,8 @@ def test_tie_and_add_a_clash_ask_for_the_fixtures_they_pair(qtbot, window, monke
     assert window.doc.edits.added == [("Herons v Wrens", "Otters v Badgers"),
                                       ("Wrens v Badgers", "Herons v Otters")]
     assert asked == [
-        ("Tie fixtures", "First fixture:", labels),
-        ("Tie fixtures", "Fixture to share a round with Herons v Wrens:", others),
+        ("Play together", "First fixture:", labels),
+        ("Play together", "Fixture to share a round with Herons v Wrens:", others),
         ("Add a clash", "Fixture that may not share a round with Herons v Wrens:", others),
         ("Add a clash", "First fixture:", labels),
         ("Add a clash", "Fixture that may not share a round with Wrens v Badgers:",

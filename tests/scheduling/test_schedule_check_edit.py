@@ -61,7 +61,7 @@ def test_split_tie_pin_played_blocked_and_range_named():
     got = [(v.rule, v.message) for v in check_schedule(lg, textbook_graph(lg), s)]
     assert got == [
         ("split", "Ash v Cedar and Birch v Daisy are both in round 2: referee Kim (row 2)"),
-        ("tie", "Ash v Birch and Birch v Daisy must share a round (Ties row 3) but are in "
+        ("tie", "Ash v Birch and Birch v Daisy must share a round (Together row 3) but are in "
                 "rounds 1 and 2"),
         ("blocked", "Ash v Birch is in round 1, but team Birch is blocked in round 1 "
                     "(Blocked row 5: camp)"),
@@ -100,10 +100,14 @@ def test_generator_rules_named():
     s = Schedule(3, {"Ash v Birch": 1, "Cedar v Daisy": 2, "Elm v Fir": 2, "Gorse v Ash": 3})
     g = textbook_graph(lg)
     assert [(v.rule, v.message) for v in check_schedule(lg, g, s)] == [
-        ("away run", "team Ash plays 1 away fixtures in a row (rounds 3); Max away run is 0"),
-        ("away run", "team Birch plays 1 away fixtures in a row (rounds 1); Max away run is 0"),
-        ("away run", "team Daisy plays 1 away fixtures in a row (rounds 2); Max away run is 0"),
-        ("away run", "team Fir plays 1 away fixtures in a row (rounds 2); Max away run is 0"),
+        ("away run", "team Ash plays 1 away fixture in a row (rounds 3); Most away games in a "
+                     "row is 0"),
+        ("away run", "team Birch plays 1 away fixture in a row (rounds 1); Most away games in "
+                     "a row is 0"),
+        ("away run", "team Daisy plays 1 away fixture in a row (rounds 2); Most away games in "
+                     "a row is 0"),
+        ("away run", "team Fir plays 1 away fixture in a row (rounds 2); Most away games in a "
+                     "row is 0"),
         ("balance", "rounds hold 1 to 2 fixtures (round 2: 2, round 1: 1); Round balance "
                     "allows a difference of 0"),
     ]
@@ -119,7 +123,7 @@ def test_home_run_named_with_its_rounds():
     s = Schedule(5, {"Ash v Birch": 1, "Ash v Cedar": 2, "Ash v Daisy": 4, "Elm v Ash": 5})
     (v,) = check_schedule(lg, textbook_graph(lg), s)
     assert v.message == ("team Ash plays 3 home fixtures in a row (rounds 1, 2, 4); "
-                         "Max home run is 2")
+                         "Most home games in a row is 2")
     assert v.fixtures == ("Ash v Birch", "Ash v Cedar", "Ash v Daisy")
 
 
@@ -152,7 +156,8 @@ def test_move_with_ties_carries_the_tied_fixture():
     g = textbook_graph(lg)
     alone = move(lg, g, s, "Birch v Daisy", 4)
     assert [v.message for v in alone.violations] == [
-        "Ash v Cedar and Birch v Daisy must share a round (Ties row 2) but are in rounds 3 and 4"
+        "Ash v Cedar and Birch v Daisy must share a round (Together row 2) but are in rounds 3 "
+        "and 4"
     ]
     both = move(lg, g, s, "Birch v Daisy", 4, carry_ties=True)
     assert both.moved == ("Ash v Cedar", "Birch v Daisy")

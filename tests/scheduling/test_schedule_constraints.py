@@ -117,7 +117,7 @@ def test_tie_between_clashing_fixtures_is_named():
     lg.ties = [Tie("Ash v Birch", "Ash v Cedar", row=5)]
     m = build_model(lg, textbook_graph(lg), 4)
     assert m.contradictions == [
-        "Ash v Birch and Ash v Cedar are tied to one round (Ties row 5) but they clash: "
+        "Ash v Birch and Ash v Cedar must be played together (Together row 5) but they clash: "
         "team Ash; venue North Park"
     ]
     assert m.count() == 0
@@ -132,7 +132,7 @@ def test_conflicting_pins_within_a_tie_are_named():
     lg.fixtures[1].played = True
     m = build_model(lg, textbook_graph(lg), 3)
     assert m.contradictions == [
-        "tied fixtures must share a round, but Ash v Birch (pinned to round 1), "
+        "fixtures kept together must share a round, but Ash v Birch (pinned to round 1), "
         "Cedar v Daisy (played in round 2)"
     ]
     assert m.count() == 0
@@ -186,15 +186,15 @@ def test_rules_lists_say_what_is_counted_and_what_only_the_generator_enforces():
     m = build_model(lg, textbook_graph(lg), 6)
     assert m.rules_counted == [
         f"clashes: {m.clashes.number_of_edges()} pairs of fixtures never share a round",
-        "splits: 1 pair kept apart by hand (counted as clashes)",
+        "apart: 1 pair kept apart by hand (counted as clashes)",
         "pins: 1 fixture fixed to its round",
         "blocked: 1 Blocked row keeps teams or venues out of rounds",
         "return half: first legs in rounds 1..3, return fixtures in rounds 4..6",
     ]
     assert m.rules_generator == [
         "venue capacity: Hub hosts at most 2 fixtures a round (2 pitches)",
-        "max home run: no team plays more than 2 home fixtures in a row",
-        "max away run: no team plays more than 2 away fixtures in a row",
+        "most home games in a row: no team plays more than 2 home fixtures in a row",
+        "most away games in a row: no team plays more than 2 away fixtures in a row",
         "round balance: fixtures per round differ by at most 1",
     ]
 

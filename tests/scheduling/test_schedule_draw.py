@@ -48,7 +48,7 @@ def test_plan_without_rules_is_a_valid_uniform_draw():
     assert check_schedule(lg, g, s) == []
     assert out.assignments == s.assignments == len(brute(lg, g, 4))
     assert (s.seed, s.method, s.rounds) == (17, "uniform", 4)
-    assert s.notes == [f"drawn uniformly from all {out.assignments:,} valid assignments"]
+    assert s.notes == [f"drawn uniformly from all {out.assignments:,} valid schedules"]
     assert s.rules_counted == ["clashes: 12 pairs of fixtures never share a round"]
     assert s.rules_generator == []
 
@@ -100,12 +100,12 @@ def test_rules_kept_by_rejection_and_the_share_reported():
     assert out.schedule.assignment == met[0]
     assert out.schedule.notes == [
         f"{len(met)} of 50 draws met every rule",
-        f"drawn uniformly from all {out.assignments:,} valid assignments and kept as the first "
+        f"drawn uniformly from all {out.assignments:,} valid schedules and kept as the first "
         "to meet every rule",
     ]
     assert out.schedule.rules_generator == [
-        "max home run: no team plays more than 2 home fixtures in a row",
-        "max away run: no team plays more than 2 away fixtures in a row",
+        "most home games in a row: no team plays more than 2 home fixtures in a row",
+        "most away games in a row: no team plays more than 2 away fixtures in a row",
     ]
     assert check_schedule(lg, g, out.schedule) == []
 
@@ -224,7 +224,8 @@ def test_too_few_rounds_names_every_extra_constraint():
     lg.blocked = [Blocked(1, team="Cedar", row=2)]
     out = plan(lg, textbook_graph(lg), 3, seed=1)
     assert out.reasons == [
-        "Cedar v Daisy is tied to Ash v Birch, pinned to round 1, but team Cedar is blocked in "
+        "Cedar v Daisy is together with Ash v Birch, pinned to round 1, but team Cedar is "
+        "blocked in "
         "round 1 (Blocked row 2)"
     ]
     lg.blocked = [Blocked(2, team="Cedar", row=2)]

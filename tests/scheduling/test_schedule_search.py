@@ -72,7 +72,8 @@ def test_home_run_impossible_by_counting_names_the_team():
     _, out = run(lg, 4)
     assert out.status == "impossible"
     assert out.reasons == [
-        "max home run: team Ash has 3 home fixtures and 1 away, so some run of home fixtures "
+        "most home games in a row: team Ash has 3 home fixtures and 1 away, so some run of "
+        "home fixtures "
         "is longer than 1"
     ]
 
@@ -82,7 +83,8 @@ def test_away_run_impossible_by_counting_names_the_team():
                      settings=Settings(max_away_run=2))
     _, out = run(lg, 3)
     assert out.reasons == [
-        "max away run: team Ash has 3 away fixtures and 0 home, so some run of away fixtures "
+        "most away games in a row: team Ash has 3 away fixtures and 0 home, so some run of "
+        "away fixtures "
         "is longer than 2"
     ]
 
@@ -101,7 +103,8 @@ def test_home_run_impossible_found_by_exhausting_the_search():
     assert all(check_generator(lg, model.generator, a, 3) for a in every)
     assert out.status == "impossible"
     assert out.reasons == [
-        f"max home run: no schedule meets it together with the clashes, pins and blocked "
+        f"most home games in a row: no schedule meets it together with the clashes, pins and "
+        f"blocked "
         f"rounds (the search tried every option, {out.steps} steps)"
     ]
 
@@ -111,13 +114,14 @@ def test_several_rules_impossible_each_impossible_alone_are_named():
     _, out = run(lg, 3)
     assert out.status == "impossible"
     assert out.reasons[1:] == [
-        "max home run cannot hold even alone with the clashes, pins and blocked rounds",
-        "max away run cannot hold even alone with the clashes, pins and blocked rounds",
+        "most home games in a row cannot hold even alone with the clashes, pins and blocked rounds",
+        "most away games in a row cannot hold even alone with the clashes, pins and blocked rounds",
     ]
 
 
 def test_rules_possible_alone_but_not_together_are_named():
-    """Ash must play home, away, home (max home run 1), so its away game at Hub takes round 2,
+    """Ash must play home, away, home (most home games in a row 1), so its away game at Hub
+    takes round 2,
     where closed rounds already force Hub's two other fixtures: Hub has only two pitches."""
     fixtures = [fx("Ash", "Birch", "North"), fx("Ash", "Cedar", "North"),
                 fx("Daisy", "Ash", "Hub"), fx("Elm", "Fir", "Hub"), fx("Gorse", "Holly", "Hub")]
@@ -134,7 +138,7 @@ def test_rules_possible_alone_but_not_together_are_named():
     assert out.reasons == [
         f"no schedule meets every rule together (the search tried every option, "
         f"{out.steps} steps)",
-        "each rule can hold alone, but not all together: venue capacity, max home run",
+        "each rule can hold alone, but not all together: venue capacity, most home games in a row",
     ]
 
 

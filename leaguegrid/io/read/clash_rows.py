@@ -1,4 +1,4 @@
-"""The Clashes, Ties and Splits sheets: names resolved to fixtures (a team or venue expands to
+"""The Clashes, Together and Apart sheets: names resolved to fixtures (a team or venue expands to
 all its fixtures), qualifiers `team:`, `venue:`, `fixture:` settling names of two kinds."""
 
 from __future__ import annotations
@@ -28,7 +28,8 @@ class Target:
 
 
 class Resolver:
-    """Finds fixtures, teams and venues by name for the Clashes, Ties, Splits and Blocked sheets."""
+    """Finds fixtures, teams and venues by name for the Clashes, Together, Apart and Blocked
+    sheets."""
 
     def __init__(self, ctx: ReadContext, fixtures: list[Fixture]) -> None:
         self.ctx = ctx
@@ -177,12 +178,12 @@ def _fixture_pairs(table: Table, resolver: Resolver) -> list[tuple]:
 
 
 def read_ties(table: Table, resolver: Resolver) -> list[Tie]:
-    """Ties rows: two fixture labels that must share a round."""
+    """Together rows: two fixture labels that must share a round."""
     pairs = _fixture_pairs(table, resolver)
     return [Tie(first, second, row.number) for row, first, second in pairs]
 
 
 def read_splits(table: Table, resolver: Resolver) -> list[Split]:
-    """Splits rows: two fixture labels that must not share a round, with a reason."""
-    return [Split(first, second, table.text(row, "reason") or "split", row.number)
+    """Apart rows: two fixture labels that must not share a round, with a reason."""
+    return [Split(first, second, table.text(row, "reason") or "kept apart", row.number)
             for row, first, second in _fixture_pairs(table, resolver)]

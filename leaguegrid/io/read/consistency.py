@@ -86,7 +86,7 @@ def check_ties(league: League, graph: nx.Graph, ties: Table | None, report: Repo
         if len(rounds) > 1:
             (p, a), (q, b) = pinned[0], next(item for item in pinned if item[0] != pinned[0][0])
             report.error(
-                f"the ties on {rows_text(rows[root])} put '{a}' (pinned to round {p}) and "
+                f"Together ({rows_text(rows[root])}) keeps '{a}' (pinned to round {p}) and "
                 f"'{b}' (pinned to round {q}) in one round",
                 place,
             )
@@ -94,8 +94,8 @@ def check_ties(league: League, graph: nx.Graph, ties: Table | None, report: Repo
             group_pin[root] = rounds[0]
         for a, b in _ordered(graph.subgraph(labels).edges(), league):
             report.error(
-                f"'{a}' and '{b}' clash ({reasons_text(graph, a, b)}) but the ties on "
-                f"{rows_text(rows[root])} put them in one round",
+                f"'{a}' and '{b}' clash ({reasons_text(graph, a, b)}) but Together "
+                f"({rows_text(rows[root])}) keeps them in one round",
                 place,
             )
     _check_tied_pins(league, graph, groups, group_pin, rows, ties, report)
@@ -129,8 +129,8 @@ def _check_tied_pins(
         tied = a if a not in pins else b
         root = groups.find(tied)
         report.error(
-            f"'{a}' and '{b}' clash ({reasons_text(graph, a, b)}) but pins and the ties on "
-            f"{rows_text(rows[root])} put both in round {ra}",
+            f"'{a}' and '{b}' clash ({reasons_text(graph, a, b)}) but pins and Together "
+            f"({rows_text(rows[root])}) put both in round {ra}",
             Place(ties.sheet, min(rows[root])),
         )
 

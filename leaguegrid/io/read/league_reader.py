@@ -54,22 +54,32 @@ SHEETS = {
         "Clashes",
         "Rounds",
         "Settings",
-        "Ties",
-        "Splits",
+        "Together",
+        "Apart",
         "Blocked",
         "Requests",
         "Venues",
         "Distances",
     )
 }
+# the sheets' earlier names, still read
+FORMER_SHEETS = {name_key("Ties"): name_key("Together"), name_key("Splits"): name_key("Apart")}
+
+
+def sheet_key(name: str) -> str:
+    """The key of the sheet a workbook sheet name stands for (earlier names included)."""
+    key = name_key(name)
+    return FORMER_SHEETS.get(key, key)
+
+
 SHEET_COLUMNS = {
     "fixtures": FIXTURES_COLUMNS,
     "teams": TEAMS_COLUMNS,
     "clashes": PAIR_COLUMNS,
     "rounds": ROUNDS_COLUMNS,
     "settings": SETTINGS_COLUMNS,
-    "ties": PAIR_COLUMNS,
-    "splits": PAIR_COLUMNS,
+    "together": PAIR_COLUMNS,
+    "apart": PAIR_COLUMNS,
     "blocked": BLOCKED_COLUMNS,
     "requests": REQUESTS_COLUMNS,
     "venues": VENUES_COLUMNS,
@@ -102,7 +112,7 @@ def load_league(path: str | Path, columns: dict[str, str] | None = None) -> Load
 
 def _load(path: Path, report: Report, columns: dict[str, str]) -> League | None:
     try:
-        book = read_book(path, lambda name: name_key(name) in SHEETS)
+        book = read_book(path, lambda name: sheet_key(name) in SHEETS)
     except UnreadableFile as exc:
         report.error(str(exc))
         return None
@@ -153,7 +163,7 @@ def _locate_sheets(book: RawBook, report: Report) -> dict[str, str]:
     """Known sheets by key -> name as written; near-miss names get a warning."""
     found: dict[str, str] = {}
     for name in book.sheet_names:
-        key = name_key(name)
+        key = sheet_key(name)
         if key in SHEETS:
             if name not in book.sheets:
                 report.error("the sheet holds a chart, not rows", Place(name))
@@ -167,7 +177,7 @@ def _locate_sheets(book: RawBook, report: Report) -> dict[str, str]:
                 found[key] = name
             continue
         near = difflib.get_close_matches(key, list(SHEETS), n=1, cutoff=SHEET_TYPO_CUTOFF)
-        if near and near[0] not in {name_key(n) for n in book.sheet_names}:
+        if near and near[0] not in {sheet_key(n) for n in book.sheet_names}:
             report.warn(f"the sheet is not read; did you mean '{SHEETS[near[0]]}'?", Place(name))
     return found
 
@@ -213,7 +223,7 @@ def _build(
     _read_rules(league, tables, found, ctx)
     graph = build_clash_graph(league)
     check_pins(league, graph, ctx.pin_places, report)
-    check_ties(league, graph, tables.get("ties"), report)
+    check_ties(league, graph, tables.get("together"), report)
     check_blocked(league, tables.get("blocked"), report)
     if not fixtures and not report.has_errors:
         report.error(
@@ -307,7 +317,7 @@ def _fixture_source(
 
 
 def _shared_columns(ctx: ReadContext, fixtures: Table | None) -> None:
-    """Check the Shared setting's column names; record the other Shared columns to read."""
+    """Check the Clash on setting's column names; record the other Shared columns to read."""
     names = []
     for name in ctx.settings.shared:
         key = name_key(name)
@@ -324,7 +334,7 @@ def _shared_columns(ctx: ReadContext, fixtures: Table | None) -> None:
             where = Place(place.sheet, place.row, place.column, name)
             if fixtures is None:
                 ctx.report.error(
-                    f"Shared names the column '{name}', which fixtures generated "
+                    f"Clash on names the column '{name}', which fixtures generated "
                     "from Teams do not have (they have Home, Away, Venue and "
                     "Division)",
                     where,
@@ -332,13 +342,13 @@ def _shared_columns(ctx: ReadContext, fixtures: Table | None) -> None:
             else:
                 headers = [c.header for c in fixtures.columns.values()]
                 ctx.report.error(
-                    f"Shared names the column '{name}', which the Fixtures sheet "
+                    f"Clash on names the column '{name}', which the Fixtures sheet "
                     "does not have" + suggestion(name, headers),
                     where,
                 )
     if names and not {name_key(n) for n in names} & {"home", "away"}:
         ctx.report.warn(
-            "Shared names neither Home nor Away, so a team may get two fixtures in one round",
+            "Clash on names neither Home nor Away, so a team may get two fixtures in one round",
             ctx.shared_place or Place(),
         )
     ctx.settings.shared = tuple(dict.fromkeys(names))
@@ -364,7 +374,8 @@ def _after_sheet_fixtures(fixtures: list[Fixture], teams: TeamsRead, ctx: ReadCo
 def _read_rules(
     league: League, tables: dict[str, Table | None], found: dict[str, str], ctx: ReadContext
 ) -> None:
-    """Clashes, Ties, Splits, Blocked and Distances, once fixtures, teams and venues are known."""
+    """Clashes, Together, Apart, Blocked and Distances, once fixtures, teams and venues are
+    known."""
     fixtures = tables.get("fixtures")
     sheet = fixtures.sheet if fixtures is not None else None
     for f in league.fixtures:
@@ -375,9 +386,9 @@ def _read_rules(
     order = {f.label: i for i, f in enumerate(league.fixtures)}
     if (table := _optional(tables, found, "clashes", ctx.report)) is not None:
         league.clash_rows = read_clashes(table, resolver, order)
-    if (table := _optional(tables, found, "ties", ctx.report)) is not None:
+    if (table := _optional(tables, found, "together", ctx.report)) is not None:
         league.ties = read_ties(table, resolver)
-    if (table := _optional(tables, found, "splits", ctx.report)) is not None:
+    if (table := _optional(tables, found, "apart", ctx.report)) is not None:
         league.splits = read_splits(table, resolver)
     if (table := _optional(tables, found, "blocked", ctx.report)) is not None:
         league.blocked = read_blocked(table, resolver)

@@ -22,19 +22,28 @@ SETTINGS_COLUMNS = {"setting": "Setting", "value": "Value"}
 KNOWN_SETTINGS = {
     name_key(n): n
     for n in (
-        "Shared",
+        "Clash on",
         "Legs",
         "Start date",
         "Every",
         "Skip",
         "League",
         "Time zone",
-        "Max home run",
-        "Max away run",
+        "Most home games in a row",
+        "Most away games in a row",
         "Round balance",
         "Return half",
         "Leg gap",
         "Byes apart",
+    )
+}
+# the settings' earlier names, still read: old key -> the key of the name used now
+FORMER_SETTINGS = {
+    name_key(old): name_key(new)
+    for old, new in (
+        ("Shared", "Clash on"),
+        ("Max home run", "Most home games in a row"),
+        ("Max away run", "Most away games in a row"),
     )
 }
 NOT_POSITIVE = "not a positive whole number"
@@ -43,7 +52,7 @@ NOT_POSITIVE = "not a positive whole number"
 @dataclass
 class SettingsRead:
     settings: Settings = field(default_factory=Settings)
-    shared_place: Place | None = None  # the cell that gave Shared
+    shared_place: Place | None = None  # the cell that gave Clash on
     legs_place: Place | None = None  # the cell that gave Legs
 
 
@@ -60,7 +69,7 @@ def read_settings(table: Table, report: Report) -> SettingsRead:
         if name is None:
             report.warn("a value with no setting name is ignored", table.at(row, "value"))
             continue
-        key = name_key(name)
+        key = FORMER_SETTINGS.get(name_key(name), name_key(name))
         if key not in KNOWN_SETTINGS:
             report.warn(
                 "not a setting LeagueGrid knows; it is ignored"
@@ -91,7 +100,7 @@ def _apply(key: str, table: Table, row: Row, out: SettingsRead, report: Report) 
     value = table.raw(row, "value")
     place = table.at(row, "value")
     s = out.settings
-    if key == "shared":
+    if key == "clashon":
         names = split_values(cell_text(value) or "", ",;")
         out.settings = replace(s, shared=tuple(names))
         out.shared_place = place
@@ -116,11 +125,11 @@ def _apply(key: str, table: Table, row: Row, out: SettingsRead, report: Report) 
         out.settings = replace(s, league=cell_text(value))
     elif key == "timezone":
         out.settings = replace(s, time_zone=_time_zone(cell_text(value) or "", place, report))
-    elif key in ("maxhomerun", "maxawayrun"):
+    elif key in ("mosthomegamesinarow", "mostawaygamesinarow"):
         run = whole_number(value)
         if run is None or run < 1:
             report.error(NOT_POSITIVE, place)
-        field_name = "max_home_run" if key == "maxhomerun" else "max_away_run"
+        field_name = "max_home_run" if key == "mosthomegamesinarow" else "max_away_run"
         out.settings = replace(s, **{field_name: run if run and run >= 1 else None})
     elif key == "roundbalance":
         balance = whole_number(value)

@@ -63,14 +63,14 @@ SHEETS: list[tuple[str, dict[str, str], list[dict[str, object]], str]] = [
     ("Settings", SETTINGS_COLUMNS, [
         {"setting": "League", "value": "Example league"},
         {"setting": "Time zone", "value": "Europe/London"},
-    ], "League name, Time zone, Legs, Start date, Every, Skip, Shared, Max home run, "
-       "Max away run, Round balance, Return half (yes, no or mirrored), Leg gap, Byes apart: "
-       "see the workbook format guide."),
-    ("Ties", PAIR_COLUMNS, [
+    ], "League name, Time zone, Legs, Start date, Every, Skip, Clash on, Most home games "
+       "in a row, Most away games in a row, Round balance, Return half (yes, no or "
+       "mirrored), Leg gap, Byes apart: see the workbook format guide."),
+    ("Together", PAIR_COLUMNS, [
         {"first": "Reds v Blues", "second": "Greens v Golds", "reason": "same day (example)"},
         {"first": "Blues v Reds", "second": "Golds v Greens", "reason": "same day (example)"},
     ], "Two fixtures that must be in the same round (for example a double-header)."),
-    ("Splits", PAIR_COLUMNS, [
+    ("Apart", PAIR_COLUMNS, [
         {"first": "Reds v Blues", "second": "Blues v Reds", "reason": "legs apart (example)"},
         {"first": "Greens v Golds", "second": "Golds v Greens",
          "reason": "legs apart (example)"},

@@ -153,8 +153,26 @@ def test_ties_and_splits(tmp_path):
     assert (tie.first, tie.second, tie.row) == ("Alder v Birch", "Elm v Fir", 2)
     assert [(s.first, s.second, s.reason, s.row) for s in result.league.splits] == [
         ("Cup Final", "Marsh Lane v Damson", "county ask", 2),
-        ("Cup Final", "Alder v Birch", "split", 3),
+        ("Cup Final", "Alder v Birch", "kept apart", 3),
     ]
+
+
+def test_together_and_apart_are_the_sheets_names_now_and_ties_splits_still_read(tmp_path):
+    """Issue 12's fixed names: Together and Apart; Ties and Splits are the same sheets."""
+    for together, apart in (("Together", "Apart"), ("Ties", "Splits"), ("together", "APART")):
+        result = load_book(
+            tmp_path,
+            {
+                "Fixtures": FIXTURES,
+                together: [["First", "Second"], ["Alder v Birch", "Elm v Fir"]],
+                apart: [["First", "Second"], ["Cup Final", "Alder v Birch"]],
+            },
+        )
+        assert result.ok, [str(p) for p in result.problems]
+        assert [(t.first, t.second) for t in result.league.ties] == [("Alder v Birch", "Elm v Fir")]
+        assert [(s.first, s.second, s.reason) for s in result.league.splits] == [
+            ("Cup Final", "Alder v Birch", "kept apart")
+        ]
 
 
 def test_ties_name_fixtures_only(tmp_path):
@@ -179,7 +197,7 @@ def test_tie_between_clashing_fixtures(tmp_path):
     rows = [["First", "Second"], ["Alder v Birch", "Cedar v Alder"]]
     problem = one(errors(with_sheet(tmp_path, "Ties", rows)))
     assert problem.message == (
-        "'Alder v Birch' and 'Cedar v Alder' clash (team Alder) but the ties on row 2 put them "
+        "'Alder v Birch' and 'Cedar v Alder' clash (team Alder) but Together (row 2) keeps them "
         "in one round"
     )
     assert where(problem) == ("Ties", 2, None, None)
@@ -196,7 +214,7 @@ def test_tie_joining_two_pins(tmp_path):
     result = load_book(tmp_path, {"Fixtures": fixtures, "Ties": rows})
     problem = one(errors(result))
     assert problem.message == (
-        "the ties on rows 2 and 3 put 'Alder v Birch' (pinned to round 1) and 'Elm v Fir' "
+        "Together (rows 2 and 3) keeps 'Alder v Birch' (pinned to round 1) and 'Elm v Fir' "
         "(pinned to round 2) in one round"
     )
 
@@ -209,7 +227,7 @@ def test_tie_into_a_pinned_round_that_clashes(tmp_path):
     result = load_book(tmp_path, {"Fixtures": fixtures, "Ties": rows})
     problem = one(errors(result))
     assert problem.message == (
-        "'Alder v Birch' and 'Cedar v Alder' clash (team Alder) but pins and the ties on row 2 "
+        "'Alder v Birch' and 'Cedar v Alder' clash (team Alder) but pins and Together (row 2) "
         "put both in round 1"
     )
     assert where(problem) == ("Ties", 2, None, None)
@@ -226,6 +244,6 @@ def test_split_inside_a_tie(tmp_path):
     )
     problem = one(errors(result))
     assert problem.message == (
-        "'Alder v Birch' and 'Elm v Fir' clash (Splits row 2: apart) but the ties on row 2 put "
+        "'Alder v Birch' and 'Elm v Fir' clash (Apart row 2: apart) but Together (row 2) keeps "
         "them in one round"
     )

@@ -403,7 +403,7 @@ def test_shared_names_an_unknown_column(tmp_path):
     }
     problem = one(errors(load_book(tmp_path, sheets)))
     assert problem.message == (
-        "Shared names the column 'Referees', which the Fixtures sheet does not have; "
+        "Clash on names the column 'Referees', which the Fixtures sheet does not have; "
         "did you mean 'Referee'?"
     )
     assert where(problem) == ("Settings", 2, "Value", "Referees")

@@ -72,7 +72,7 @@ def test_shared_without_teams(tmp_path):
     assert listed(result) == [
         (
             "warning",
-            "Shared names neither Home nor Away, so a team may get two fixtures in one round",
+            "Clash on names neither Home nor Away, so a team may get two fixtures in one round",
             ("Settings", 2, "Value", "Venue"),
         )
     ]
@@ -86,7 +86,7 @@ def test_shared_for_generated_fixtures(tmp_path):
     assert listed(result) == [
         (
             "error",
-            "Shared names the column 'Referee', which fixtures generated from Teams do not "
+            "Clash on names the column 'Referee', which fixtures generated from Teams do not "
             "have (they have Home, Away, Venue and Division)",
             ("Settings", 2, "Value", "Referee"),
         )

@@ -136,6 +136,25 @@ def test_settings_read(tmp_path):
     assert result.league.name == "Moorside Juniors"
 
 
+def test_settings_plain_names_and_their_earlier_names_read_alike(tmp_path):
+    """Issue 12's fixed names: Clash on, Most home/away games in a row (earlier: Shared, Max
+    home run, Max away run); giving both names of one setting is the setting twice."""
+    now = [["Setting", "Value"], ["Clash on", "Home, Away, Venue, Referee"],
+           ["Most home games in a row", 2], ["most away games in a row", 3]]
+    before = [["Setting", "Value"], ["Shared", "Home, Away, Venue, Referee"],
+              ["Max home run", 2], ["Max away run", 3]]
+    teams = {"Teams": [["Team"], ["A"], ["B"]]}
+    read = [load_book(tmp_path, {**teams, "Settings": rows}) for rows in (now, before)]
+    assert read[0].league.settings == read[1].league.settings
+    assert read[0].league.settings.max_home_run == 2
+    assert read[0].league.settings.max_away_run == 3
+    both = [["Setting", "Value"], ["Max home run", 2], ["Most home games in a row", 3]]
+    result = load_book(tmp_path, {**teams, "Settings": both})
+    assert [(p.message, p.row) for p in result.problems] == [
+        ("the setting appears twice (rows 2 and 3); only the first is read", 3)
+    ]
+
+
 def test_leg_gap_must_be_a_positive_whole_number_and_needs_two_legs(tmp_path):
     rows = [["Setting", "Value"], ["Leg gap", 0], ["Return half", "halfway"]]
     result = load_book(tmp_path, {"Teams": [["Team"], ["A"], ["B"]], "Settings": rows})

@@ -46,7 +46,7 @@ def test_every_sheet_has_two_example_rows_or_the_rows_its_league_needs(tmp_path)
     wb = openpyxl.load_workbook(write_blank_league(tmp_path / "blank.xlsx"))
     rows = {title: wb[title].max_row - 1 for title in SHEETS.values()}
     assert rows == {"Fixtures": 4, "Teams": 4, "Clashes": 2, "Rounds": 3, "Settings": 2,
-                    "Ties": 2, "Splits": 2, "Blocked": 2, "Requests": 2, "Venues": 2,
+                    "Together": 2, "Apart": 2, "Blocked": 2, "Requests": 2, "Venues": 2,
                     "Distances": 1}
 
 
