@@ -22,11 +22,14 @@ from leaguegrid.io.read.context import ReadContext
 from leaguegrid.io.read.fixtures_sheet import (
     FIXTURES_COLUMNS,
     STANDARD_SHARED,
+    TEAM_READ,
     TEAMS_COLUMNS,
     TeamsRead,
+    add_team_shared,
     complete_from_teams,
     generate_fixtures,
     read_fixtures,
+    read_team_shared,
     read_teams,
 )
 from leaguegrid.io.read.ground_limits import ground_limits
@@ -190,7 +193,9 @@ def _build(
     teams = read_teams(teams_table, ctx) if teams_table is not None else TeamsRead()
     if fixtures_table is None and teams_table is None:
         return None
-    _shared_columns(ctx, fixtures_table)
+    _shared_columns(ctx, fixtures_table, teams_table)
+    if teams_table is not None:
+        read_team_shared(teams_table, teams, ctx)
     if fixtures_table is not None:
         fixtures = read_fixtures(fixtures_table, ctx)
         complete_from_teams(fixtures, ctx)
@@ -199,6 +204,7 @@ def _build(
         limits = ground_limits(ctx, tables.get("blocked"), tables.get("clashes"),
                                tables.get("requests"))
         fixtures = generate_fixtures(teams, ctx, limits)
+    add_team_shared(fixtures, ctx)
     ctx.fixtures = fixtures
     league = League(
         name=ctx.settings.league or path.stem,
@@ -306,9 +312,13 @@ def _fixture_source(
     return None, None
 
 
-def _shared_columns(ctx: ReadContext, fixtures: Table | None) -> None:
-    """Check the Shared setting's column names; record the other Shared columns to read."""
+def _shared_columns(ctx: ReadContext, fixtures: Table | None, teams: Table | None) -> None:
+    """Check the Shared setting's column names; record the other Shared columns to read, of
+    Fixtures or of Teams. A Coach column on Teams is Shared unless Settings says otherwise."""
     names = []
+    has_coach = teams is not None and teams.has("coach")
+    if has_coach and ctx.shared_place is None:
+        ctx.settings.shared = (*ctx.settings.shared, TEAMS_COLUMNS["coach"])
     for name in ctx.settings.shared:
         key = name_key(name)
         if key in STANDARD_SHARED:
@@ -316,6 +326,9 @@ def _shared_columns(ctx: ReadContext, fixtures: Table | None) -> None:
         elif fixtures is not None and fixtures.has(key):
             ctx.shared_columns[key] = fixtures.header(key)
             names.append(fixtures.header(key))
+        elif teams is not None and teams.has(key) and key not in TEAM_READ:
+            ctx.team_shared[key] = TEAMS_COLUMNS.get(key) or teams.header(key)
+            names.append(ctx.team_shared[key])
         elif fixtures is None and key == "division":
             ctx.shared_columns[key] = "Division"
             names.append("Division")
@@ -336,6 +349,13 @@ def _shared_columns(ctx: ReadContext, fixtures: Table | None) -> None:
                     "does not have" + suggestion(name, headers),
                     where,
                 )
+    if teams is not None and has_coach and not {"coach"} & {*ctx.team_shared, *ctx.shared_columns}:
+        ctx.report.warn(
+            f"the Teams sheet has a {teams.header('coach')} column, but Shared does not name "
+            "it, so teams with the same coach may play in the same round",
+            ctx.shared_place or Place(),
+        )
+    ctx.settings.team_shared = tuple(ctx.team_shared.values())
     if names and not {name_key(n) for n in names} & {"home", "away"}:
         ctx.report.warn(
             "Shared names neither Home nor Away, so a team may get two fixtures in one round",
