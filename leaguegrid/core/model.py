@@ -225,6 +225,9 @@ class LoadResult:
 
     league: League | None
     problems: list[Problem] = field(default_factory=list)
+    # column matching entries (our column, the file's header) naming a header the file lacks
+    unmatched: list[tuple[str, str]] = field(default_factory=list)
+    headers: list[str] = field(default_factory=list)  # the Fixtures sheet's headers as written
 
     @property
     def errors(self) -> list[Problem]:

@@ -4,6 +4,7 @@ found reported at once. Never raises: anything unexpected becomes a Problem nami
 from __future__ import annotations
 
 import difflib
+from dataclasses import dataclass, field
 from pathlib import Path
 
 from leaguegrid.clashes.graph import build_clash_graph
@@ -88,10 +89,13 @@ def load_league(path: str | Path, columns: dict[str, str] | None = None) -> Load
 
     `columns` (from the window's column matching) maps our Fixtures column names (Fixture, Home,
     Away, Venue, Pitch, Division, Round, ...) to the file's own; its "Shared" entry lists, ";"-
-    separated, more of the file's columns whose equal values clash."""
+    separated, more of the file's columns whose equal values clash. Entries naming a column the
+    file does not have are listed in the result's `unmatched` (what to do about them is the
+    caller's: app.league drops a remembered matching, and refuses one typed on a command line)."""
     report = Report(str(path))
+    fit = _Fit()
     try:
-        league = _load(Path(path), report, columns or {})
+        league = _load(Path(path), report, columns or {}, fit)
     except Exception as exc:  # the promise: never a traceback, always a Problem
         report.error(
             f"could not be read because of an unexpected error "
@@ -100,10 +104,19 @@ def load_league(path: str | Path, columns: dict[str, str] | None = None) -> Load
         league = None
     if league is not None:
         league.warnings = report.warnings
-    return LoadResult(league, report.problems)
+    return LoadResult(league, report.problems, fit.unmatched, fit.headers)
 
 
-def _load(path: Path, report: Report, columns: dict[str, str]) -> League | None:
+@dataclass
+class _Fit:
+    """How the column matching fits the file: the entries naming a header it lacks, and the
+    Fixtures headers there are."""
+
+    unmatched: list[tuple[str, str]] = field(default_factory=list)
+    headers: list[str] = field(default_factory=list)
+
+
+def _load(path: Path, report: Report, columns: dict[str, str], fit: _Fit) -> League | None:
     try:
         book = read_book(path, lambda name: name_key(name) in SHEETS)
     except UnreadableFile as exc:
@@ -126,7 +139,8 @@ def _load(path: Path, report: Report, columns: dict[str, str]) -> League | None:
         report_bad_cells(raw, table, report)
         tables[key] = table
     if (fixtures := tables.get("fixtures")) is not None:
-        _check_mapping(fixtures, columns, report)
+        fit.headers = [c.header for c in fixtures.columns.values()]
+        fit.unmatched = _unmatched(fixtures, tables.get("teams"), columns)
     return _build(path, found, tables, book.kind, report, extra_shared)
 
 
@@ -141,15 +155,20 @@ def _column_mapping(columns: dict[str, str]) -> tuple[dict[str, str], list[str]]
     return rename, shared
 
 
-def _check_mapping(table: Table, columns: dict[str, str], report: Report) -> None:
-    """A column matching that names a column the sheet does not have gets a warning."""
-    headers = {name_key(c.header) for c in table.columns.values()}
-    for ours, theirs in columns.items():
-        if name_key(ours) in FIXTURES_COLUMNS and name_key(theirs) not in headers:
-            report.warn(
-                f"the column matching takes '{theirs}' as {ours}, but the sheet has no such column",
-                Place(table.sheet, table.header_row, theirs),
-            )
+def _unmatched(
+    fixtures: Table, teams: Table | None, columns: dict[str, str]
+) -> list[tuple[str, str]]:
+    """The matching's entries naming a header the sheet lacks (a Shared entry may also name a
+    column of Teams)."""
+    headers = {name_key(c.header) for c in fixtures.columns.values()}
+    also = {name_key(c.header) for c in teams.columns.values()} if teams is not None else set()
+    out = [(ours, theirs) for ours, theirs in columns.items()
+           if name_key(ours) in FIXTURES_COLUMNS and theirs.strip()
+           and name_key(theirs) not in headers]
+    for name in split_values(columns.get("Shared", ""), ";"):
+        if name_key(name) not in headers | also | STANDARD_SHARED:
+            out.append(("Shared", name))
+    return out
 
 
 def _locate_sheets(book: RawBook, report: Report) -> dict[str, str]:
