@@ -6,6 +6,7 @@ file and the command line's `--columns home="Home Team",venue=Ground`."""
 from __future__ import annotations
 
 from leaguegrid.core.names import name_key, suggestion
+from leaguegrid.io.read.columns import ALIASES
 from leaguegrid.io.read.fixtures_sheet import FIXTURES_COLUMNS
 
 SHARED = "Shared"
@@ -74,3 +75,15 @@ def _unquote(text: str) -> str:
 def misses_text(unmatched: list[tuple[str, str]]) -> str:
     """'no column 'Home Team' for Home, no column 'Ref' for Shared'."""
     return ", ".join(f"no column {theirs!r} for {ours}" for ours, theirs in unmatched)
+
+
+def guess_matching(headers: list[str]) -> dict[str, str]:
+    """Our Fixtures column name -> the header the reader takes for it unmatched: the one of our
+    name, else one of the usual spreadsheet words for it (Home Team, Ground, Kick-off, ...)."""
+    out: dict[str, str] = {}
+    for key, name in FIXTURES_COLUMNS.items():
+        exact = [h for h in headers if name_key(h) == key]
+        usual = [h for h in headers if ALIASES.get(name_key(h)) == key]
+        if exact or usual:
+            out[name] = (exact or usual)[0]
+    return out
