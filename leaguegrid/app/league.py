@@ -84,7 +84,9 @@ def _typed_misses(path: Path, result: LoadResult) -> str:
     """Why a typed matching does not fit: each header missing, the closest one there is."""
     parts = [f"{path.name} has no column {theirs!r} for {ours}"
              + suggestion(theirs, result.headers) for ours, theirs in result.unmatched]
-    return "; ".join(parts) + f". Its Fixtures columns: {', '.join(result.headers)}."
+    said = "; ".join(parts)
+    return said + ("" if said.endswith("?") else ".") + (
+        f" Its Fixtures columns: {', '.join(result.headers)}.")
 
 
 def open_source(path: str | Path, columns: dict[str, str] | None = None) -> OpenedLeague:
