@@ -35,9 +35,9 @@ def parse_columns(text: str) -> dict[str, str]:
             raise ColumnsError(f"{part!r} has no '=': write KEY=HEADER, e.g. {EXAMPLE}")
         name = KEYS.get(name_key(ours))
         if name is None:
-            keys = ", ".join(k for k in KEYS)
-            raise ColumnsError(f"{ours!r} is not one of our columns ({keys})"
-                               + suggestion(ours, KEYS))
+            usual = ALIASES.get(name_key(ours))  # a header word (ground) for a key (venue)
+            hint = f"; did you mean {usual!r}?" if usual in KEYS else suggestion(ours, KEYS)
+            raise ColumnsError(f"{ours!r} is not one of our columns ({', '.join(KEYS)})" + hint)
         if not theirs:
             raise ColumnsError(f"{part!r} names no header after '='")
         if name in out:

@@ -86,7 +86,7 @@ class FileFlows:
         self.whatif_view.clear()
         self._update_enabled()
         self.stage_label.setText(summary)
-        if not result.ok:
+        if not result.ok or opened.notice:
             self.tabs.setCurrentWidget(self.import_view)
         self.leagueOpened.emit(path)
         if result.ok:
