@@ -44,8 +44,8 @@ class FileFlows:
 
     def _read(self: Any, path: str, mapping: dict[str, str] | None, after: Any = None) -> None:
         def done(opened: league.OpenedLeague) -> None:
-            if opened.notice:  # the remembered matching no longer fits: forget it
-                save_mapping(self.settings, path, {})
+            if opened.notice and load_mapping(self.settings, path) == mapping:
+                save_mapping(self.settings, path, {})  # remembered, no longer fits: forget it
             self._opened(path, opened.columns, opened)
             if after is not None:
                 after()

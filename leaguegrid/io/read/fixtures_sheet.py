@@ -282,7 +282,8 @@ def _read_pin(table: Table, row: Row, fixture: Fixture, ctx: ReadContext) -> Non
         if len(rounds) > 1:
             ctx.report.error(
                 f"several rounds fall on {table.text(row, key)} ({_rounds_text(rounds)}): "
-                "write the round number" + (" in the Round column" if key == "date" else ""),
+                "write the round number"
+                + (f" in the {table.header('round')} column" if key == "date" else ""),
                 table.at(row, key),
             )
         else:
