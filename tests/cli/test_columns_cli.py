@@ -97,3 +97,11 @@ def test_a_projects_stale_matching_is_dropped_and_columns_replace_it(cli, tmp_pa
                    "own headers.\n")
     code, out, err = cli("check", str(project), "--columns", "venue=Ground")
     assert (code, err) == (0, "")
+
+
+def test_a_project_file_that_cannot_be_read_is_an_input_problem(cli, tmp_path):
+    project = tmp_path / "spring.leaguegrid"
+    project.write_text('{"format": "something else"}', encoding="utf-8")
+    code, out, err = cli("count", str(project))
+    assert (code, out) == (1, "")
+    assert err == f"leaguegrid count: {project} is not a LeagueGrid project file\n"
