@@ -10,10 +10,14 @@ from typing import Any
 import networkx as nx
 
 from leaguegrid import engine
+from leaguegrid.app import project
 from leaguegrid.app.defaults import PREVIEW_ROWS
+from leaguegrid.app.editing import working_league
+from leaguegrid.app.matching import ColumnsError, misses_text
 from leaguegrid.clashes.graph import build_clash_graph, without_reasons
 from leaguegrid.core.model import League, LoadResult, Reason
-from leaguegrid.core.wording import plural
+from leaguegrid.core.names import suggestion
+from leaguegrid.core.wording import plural, stale_matching
 from leaguegrid.io.read.league_reader import load_league
 from leaguegrid.io.read.sheets import UnreadableFile, read_book
 
@@ -33,6 +37,8 @@ class OpenedLeague:
     graph: nx.Graph | None
     sha256: str | None = None
     preview: Preview | None = None
+    columns: dict[str, str] | None = None  # the column matching the file was read with
+    notice: str | None = None  # a one-line notice: a remembered matching was dropped
 
     @property
     def ok(self) -> bool:
@@ -44,15 +50,26 @@ class OpenedLeague:
 
 
 def open_league(path: str | Path, columns: dict[str, str] | None = None, *,
-                preview: bool = False, hooks: engine.Hooks | None = None) -> OpenedLeague:
-    """Read a league workbook or CSV (`columns`: our Fixtures column -> the file's, from the
-    window's column matching) and build its clash graph; with `preview`, also every sheet's
-    rows and the file's SHA-256 (to notice later that the workbook changed)."""
+                preview: bool = False, hooks: engine.Hooks | None = None,
+                typed: bool = False) -> OpenedLeague:
+    """Read a league workbook or CSV (`columns`: the column matching, our Fixtures column ->
+    the file's, see app.matching) and build its clash graph; with `preview`, also every
+    sheet's rows and the file's SHA-256 (to notice later that the workbook changed).
+
+    A remembered matching naming a column the file no longer has is dropped, with a notice,
+    and the file read without it; one the coordinator just `typed` raises ColumnsError."""
     hooks = hooks or engine.Hooks()
     path = Path(path)
     hooks.report(0.1, f"Reading {path.name}")
     result = load_league(path, columns=columns or None)
-    opened = OpenedLeague(path, result, None)
+    notice = None
+    if columns and result.unmatched:
+        if typed:
+            raise ColumnsError(_typed_misses(path, result))
+        notice = stale_matching(path.name, misses_text(result.unmatched))
+        columns = None
+        result = load_league(path)
+    opened = OpenedLeague(path, result, None, columns=columns or None, notice=notice)
     if preview:
         hooks.report(0.6, "Preparing the preview")
         opened.preview = preview_sheets(path)
@@ -61,6 +78,37 @@ def open_league(path: str | Path, columns: dict[str, str] | None = None, *,
         hooks.report(0.8, "Building the clash graph")
         opened.graph = build_clash_graph(result.league)
     return opened
+
+
+def _typed_misses(path: Path, result: LoadResult) -> str:
+    """Why a typed matching does not fit: each header missing, the closest one there is."""
+    parts = [f"{path.name} has no column {theirs!r} for {ours}"
+             + suggestion(theirs, result.headers) for ours, theirs in result.unmatched]
+    said = "; ".join(parts)
+    return said + ("" if said.endswith("?") else ".") + (
+        f" Its Fixtures columns: {', '.join(result.headers)}.")
+
+
+def open_source(path: str | Path, columns: dict[str, str] | None = None) -> OpenedLeague:
+    """What a command reads: a workbook or CSV, or a project file (the workbook it names with
+    its matching, pins, ties, waived and added clashes). `columns`, typed by the coordinator,
+    replaces the project's matching and must fit the file (ColumnsError otherwise); the
+    project's own matching is dropped with a notice when it no longer fits."""
+    path = Path(path)
+    if path.suffix.lower() != project.SUFFIX:
+        return open_league(path, columns, typed=columns is not None)
+    data = project.read_project(path)
+    workbook = Path(data.workbook_path(path))
+    opened = open_league(workbook, columns if columns is not None else data.mapping,
+                         typed=columns is not None)
+    if not opened.ok or opened.league is None:
+        return opened
+    restored = project.restore(data, opened.league, sha256_of(workbook))
+    league = working_league(opened.league, restored.edits)
+    notes = [n for n in (opened.notice, restored.warning) if n]
+    return OpenedLeague(workbook, LoadResult(league, opened.result.problems),
+                        clash_graph(league, restored.edits.waived), columns=opened.columns,
+                        notice=" ".join(notes) or None)
 
 
 def clash_graph(league: League, waived: list[Reason] | None = None) -> nx.Graph:

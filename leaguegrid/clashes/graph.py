@@ -31,7 +31,7 @@ def build_clash_graph(league: League) -> nx.Graph:
         _add_groups(graph, _team_groups(league.fixtures))
     if "venue" in shared:
         _add_groups(graph, _venue_groups(league))
-    _add_groups(graph, _shared_groups(league.fixtures))
+    _add_groups(graph, _shared_groups(league.fixtures, league.settings.team_shared))
     for clash in league.clash_rows:
         reason = Reason("clash", clash.reason or "no reason given", clash.row)
         for a, b in clash.pairs:
@@ -106,14 +106,20 @@ def pitch_key(venue: str, pitch: str) -> str:
     return f"{venue}, pitch {pitch}"
 
 
-def _shared_groups(fixtures: list[Fixture]) -> list[tuple[Reason, list[str]]]:
-    """Equal values of one other Shared column (a cell may hold several, ';'-separated)."""
+def _shared_groups(
+    fixtures: list[Fixture], team_columns: Iterable[str] = ()
+) -> list[tuple[Reason, list[str]]]:
+    """Equal values of one other Shared column (a cell may hold several, ';'-separated). A
+    Fixtures column's reason reads 'Referee=Bo'; a Teams column's, like a team's, 'coach Bo'."""
+    of_teams = {_key(c) for c in team_columns}
     groups: dict[tuple[str, str], tuple[Reason, list[str]]] = {}
     for f in fixtures:
         for column, values in f.shared.items():
             for value in dict.fromkeys(values):
                 if value.strip():
-                    reason = Reason("shared", f"{column}={value}")
+                    key = (f"{column.casefold()} {value}" if _key(column) in of_teams
+                           else f"{column}={value}")
+                    reason = Reason("shared", key)
                     entry = groups.setdefault((_key(column), _key(value)), (reason, []))
                     if f.label not in entry[1]:
                         entry[1].append(f.label)

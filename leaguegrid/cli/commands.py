@@ -7,20 +7,38 @@ import datetime as dt
 import json
 import sys
 import time
-from pathlib import Path
 
 from leaguegrid import engine
 from leaguegrid.app import counting, export, league, planning
 from leaguegrid.app import whatif as what
 from leaguegrid.app.demos import demo_leagues
+from leaguegrid.app.matching import ColumnsError
+from leaguegrid.app.project import ProjectError
 from leaguegrid.cli import render
 from leaguegrid.cli.exits import INPUT_PROBLEMS, OK, PLAN_EXITS, STOPPED, WRITE_FAILED, UsageError
 
 
-def _open(path: Path, rounds: int | None = None) -> league.OpenedLeague | None:
+def _read(args: argparse.Namespace) -> league.OpenedLeague | None:
+    """The league the command names, read with its column matching (a notice of a dropped
+    matching on stderr); None, after saying why, when a project file cannot be read."""
+    try:
+        opened = league.open_source(args.file, args.columns)
+    except ColumnsError as err:
+        raise UsageError(f"--columns: {err}") from err
+    except ProjectError as err:
+        print(f"leaguegrid {args.command}: {err}", file=sys.stderr)
+        return None
+    if opened.notice:
+        print(opened.notice, file=sys.stderr)
+    return opened
+
+
+def _open(args: argparse.Namespace, rounds: int | None = None) -> league.OpenedLeague | None:
     """Read a league, print its problems to stderr; None when it cannot be used. `rounds`, when
     given, must be a round count the league can have."""
-    opened = league.open_league(path)
+    opened = _read(args)
+    if opened is None:
+        return None
     render.print_problems(opened.result.problems, sys.stderr)
     if not opened.ok:
         return None
@@ -37,13 +55,15 @@ def _check_rounds(opened: league.OpenedLeague, rounds: int) -> None:
 
 
 def cmd_check(args: argparse.Namespace) -> int:
-    opened = league.open_league(args.file)
+    opened = _read(args)
+    if opened is None:
+        return INPUT_PROBLEMS
     render.print_check(opened, sys.stdout)
     return OK if opened.ok else INPUT_PROBLEMS
 
 
 def cmd_count(args: argparse.Namespace) -> int:
-    opened = _open(args.file)
+    opened = _open(args)
     if opened is None:
         return INPUT_PROBLEMS
     rounds = None
@@ -58,7 +78,7 @@ def cmd_count(args: argparse.Namespace) -> int:
 
 
 def cmd_plan(args: argparse.Namespace) -> int:
-    opened = _open(args.file, args.rounds)
+    opened = _open(args, args.rounds)
     if opened is None:
         return INPUT_PROBLEMS
     try:
@@ -136,7 +156,7 @@ def _round(text: str) -> int | dt.date:
 
 
 def cmd_whatif(args: argparse.Namespace) -> int:
-    opened = _open(args.file, args.rounds)
+    opened = _open(args, args.rounds)
     if opened is None:
         return INPUT_PROBLEMS
     add = tuple(_names("--add", args.add, 2, 2)) if args.add is not None else None

@@ -34,6 +34,26 @@ def parse_rounds(text: str) -> tuple[int, int]:
     return a, b
 
 
+def parse_columns(text: str) -> dict[str, str]:
+    """--columns home="Home Team",venue=Ground: our column keys = the file's headers."""
+    from leaguegrid.app.matching import ColumnsError
+    from leaguegrid.app.matching import parse_columns as parse
+
+    try:
+        return parse(text)
+    except ColumnsError as err:
+        raise argparse.ArgumentTypeError(str(err)) from err
+
+
+def _league_file(parser: argparse.ArgumentParser) -> None:
+    """The league to read (a workbook, a CSV or a project file) and its column matching."""
+    parser.add_argument("file", type=Path, help="a league workbook (.xlsx), a CSV file, or a "
+                        "project file (.leaguegrid)")
+    parser.add_argument("--columns", type=parse_columns, metavar='KEY="HEADER",...',
+                        help='which of the file\'s headers are our columns, e.g. '
+                        'home="Home Team",venue=Ground (replaces a project\'s matching)')
+
+
 def _budget(parser: argparse.ArgumentParser, default: float) -> None:
     parser.add_argument("--budget", type=float, default=default, metavar="SECONDS",
                         help=f"time limit for the whole command (default {default:g})")
@@ -50,17 +70,17 @@ def build_parser() -> argparse.ArgumentParser:
     sub = parser.add_subparsers(dest="command", metavar="COMMAND")
 
     check = sub.add_parser("check", help="validate a league workbook and list what it holds")
-    check.add_argument("file", type=Path)
+    _league_file(check)
 
     count = sub.add_parser(
         "count", help="fewest rounds, the polynomial, exact counts per round count")
-    count.add_argument("file", type=Path)
+    _league_file(count)
     count.add_argument("--rounds", type=parse_rounds, metavar="K|A..B")
     count.add_argument("--json", action="store_true", help="one JSON object on stdout")
     _budget(count, COUNT_BUDGET)
 
     plan = sub.add_parser("plan", help="make a schedule for K rounds and export it")
-    plan.add_argument("file", type=Path)
+    _league_file(plan)
     plan.add_argument("--rounds", type=int, required=True, metavar="K")
     plan.add_argument("--seed", type=int)
     plan.add_argument("--draws", type=int, default=1, metavar="N",
@@ -79,7 +99,7 @@ def build_parser() -> argparse.ArgumentParser:
     _budget(plan, PLAN_BUDGET)
 
     whatif = sub.add_parser("whatif", help="what waiving or adding a clash would change")
-    whatif.add_argument("file", type=Path)
+    _league_file(whatif)
     whatif.add_argument("--rounds", type=int, required=True, metavar="K")
     whatif.add_argument("--add", metavar="NAME,NAME", help="a proposed clash between two "
                         "fixtures, teams or venues")

@@ -73,6 +73,8 @@ def _print_contents(league: League, graph: nx.Graph | None, out: TextIO) -> None
                  if f.pitch else "")) if x]
         if f.pin is not None:
             extra.append(f"round {f.pin}" + (" (played)" if f.played else ""))
+        if f.time is not None:
+            extra.append(f"starts {f.time.strftime('%H:%M')}")
         print(f"  {f.label}" + (f"  [{', '.join(extra)}]" if extra else ""), file=out)
     if league.teams:
         print("\nTeams: " + ", ".join(sorted(league.teams)), file=out)

@@ -24,6 +24,11 @@ class DatedFixture:
     fixture: Fixture
     round: RoundInfo
 
+    @property
+    def time(self) -> dt.time | None:
+        """When it starts: the fixture's own kick-off, else its round's time."""
+        return self.fixture.time or self.round.time
+
     def sort_key(self) -> tuple:
         """Round, then division, venue, pitch and label (in natural order), so every export
         lists rows alike."""

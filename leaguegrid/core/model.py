@@ -76,6 +76,7 @@ class Fixture:
     pitch: str | None = None
     division: str | None = None
     pin: int | None = None  # round number the fixture is fixed to (1-based), if any
+    time: dt.time | None = None  # its own kick-off (Fixtures' Time), before the round's time
     played: bool = False  # already played: the pin is frozen in every schedule and count
     leg: int = 1  # 1 for the first meeting of a pairing, 2 for the return, ...
     shared: dict[str, tuple[str, ...]] = field(default_factory=dict)  # other Shared columns
@@ -181,6 +182,7 @@ class Settings:
     mirrored: bool = False  # Return half = mirrored: round H + r repeats round r, sides swapped
     leg_gap: int | None = None  # a pairing's two meetings at least this many rounds apart
     byes_apart: bool = True  # no team has byes in two rounds in a row (matchday round robins)
+    team_shared: tuple[str, ...] = ()  # the Shared columns read from Teams (a coach, a minibus)
 
 
 @dataclass
@@ -223,6 +225,9 @@ class LoadResult:
 
     league: League | None
     problems: list[Problem] = field(default_factory=list)
+    # column matching entries (our column, the file's header) naming a header the file lacks
+    unmatched: list[tuple[str, str]] = field(default_factory=list)
+    headers: list[str] = field(default_factory=list)  # the Fixtures sheet's headers as written
 
     @property
     def errors(self) -> list[Problem]:

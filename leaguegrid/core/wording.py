@@ -243,3 +243,9 @@ def rules_note(described: list[str]) -> str:
     if not described:
         return ""
     return "Not in the counts (only the schedule generator enforces them): " + "; ".join(described)
+
+
+def stale_matching(file: str, misses: str) -> str:
+    """The one-line notice when a remembered column matching no longer fits its file."""
+    return (f"The column matching remembered for {file} no longer fits it ({misses}), so it "
+            "was dropped and the file read by its own headers.")

@@ -44,7 +44,9 @@ class FileFlows:
 
     def _read(self: Any, path: str, mapping: dict[str, str] | None, after: Any = None) -> None:
         def done(opened: league.OpenedLeague) -> None:
-            self._opened(path, mapping, opened)
+            if opened.notice and load_mapping(self.settings, path) == mapping:
+                save_mapping(self.settings, path, {})  # remembered, no longer fits: forget it
+            self._opened(path, opened.columns, opened)
             if after is not None:
                 after()
 
@@ -73,6 +75,8 @@ class FileFlows:
             summary = f"{Path(path).name} could not be used: see the problems below."
         if not result.ok and lg is not None:
             summary += " It has errors: fix them in the workbook and reload (F5)."
+        if opened.notice:
+            summary = f"{opened.notice} {summary}"
         self.import_view.show_workbook(path, opened.preview or {}, list(result.problems),
                                        summary)
         self.fixtures_view.refresh()
@@ -82,7 +86,7 @@ class FileFlows:
         self.whatif_view.clear()
         self._update_enabled()
         self.stage_label.setText(summary)
-        if not result.ok:
+        if not result.ok or opened.notice:
             self.tabs.setCurrentWidget(self.import_view)
         self.leagueOpened.emit(path)
         if result.ok:

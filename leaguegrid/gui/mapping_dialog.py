@@ -9,6 +9,7 @@ from typing import Any
 
 from PySide6.QtCore import QSettings, Qt
 from PySide6.QtWidgets import (
+    QAbstractItemView,
     QComboBox,
     QDialog,
     QDialogButtonBox,
@@ -16,11 +17,16 @@ from PySide6.QtWidgets import (
     QLabel,
     QListWidget,
     QListWidgetItem,
+    QTableView,
     QVBoxLayout,
     QWidget,
 )
 
-OUR_COLUMNS = ("Fixture", "Home", "Away", "Venue", "Pitch", "Division", "Round")
+from leaguegrid.app.matching import guess_matching
+from leaguegrid.gui.sheet_model import SheetModel
+
+OUR_COLUMNS = ("Fixture", "Home", "Away", "Venue", "Pitch", "Division", "Round", "Date", "Time")
+PREVIEW = 6  # rows of the sheet shown under the choices (its header and the first fixtures)
 SHARED_KEY = "Shared"  # mapping entry: the workbook columns that are shared resources, ";"-joined
 NONE = "(not in this workbook)"
 
@@ -67,16 +73,10 @@ def fixtures_sheet(sheets: dict[str, list[tuple[int, list[Any]]]]) -> str | None
     return next(iter(sheets), None)
 
 
-def guess(ours: str, columns: list[str]) -> str | None:
-    """The workbook column that already carries our name (case and spaces ignored)."""
-    for column in columns:
-        if column.strip().casefold() == ours.casefold():
-            return column
-    return None
-
-
 class MappingDialog(QDialog):
-    """A combo per column of ours, and a checklist of columns that are shared resources."""
+    """A combo per column of ours (the reader's own guess chosen until the file's matching
+    says otherwise), the sheet's first rows, and a checklist of columns that are shared
+    resources."""
 
     def __init__(self, sheets: dict[str, list[tuple[int, list[Any]]]],
                  current: dict[str, str], parent: QWidget | None = None) -> None:
@@ -89,11 +89,12 @@ class MappingDialog(QDialog):
         intro.setWordWrap(True)
         form = QFormLayout()
         self.combos: dict[str, QComboBox] = {}
+        guessed = guess_matching(self.columns)
         for ours in OUR_COLUMNS:
             combo = QComboBox()
             combo.addItem(NONE)
             combo.addItems(self.columns)
-            chosen = current.get(ours) or guess(ours, self.columns)
+            chosen = current.get(ours) or guessed.get(ours)
             if chosen in self.columns:
                 combo.setCurrentText(chosen)
             self.combos[ours] = combo
@@ -110,9 +111,16 @@ class MappingDialog(QDialog):
                                    | QDialogButtonBox.StandardButton.Cancel)
         buttons.accepted.connect(self.accept)
         buttons.rejected.connect(self.reject)
+        self.preview = QTableView()
+        self.preview.setObjectName("matchPreview")
+        self.preview.setAccessibleName("The sheet's first rows")
+        self.preview.setModel(SheetModel(sheets.get(sheet, [])[:PREVIEW] if sheet else [], self))
+        self.preview.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
         layout = QVBoxLayout(self)
         layout.addWidget(intro)
         layout.addLayout(form)
+        layout.addWidget(QLabel("The sheet's first rows:"))
+        layout.addWidget(self.preview)
         layout.addWidget(QLabel("Other columns that are shared resources (a referee, a coach, "
                                 "kit): fixtures with the same value there clash."))
         layout.addWidget(self.shared)

@@ -13,7 +13,8 @@ from leaguegrid.io.read.values import cell_text
 
 TYPO_CUTOFF = 0.75
 # the usual spreadsheet words for our columns (case and spaces ignored): a header so named is
-# read as that column when the sheet has no column of the standard name
+# read as that column when the sheet has no column of the standard name (Round, Date, Time and
+# Coach are standard names of their own)
 ALIASES = {
     name_key(alias): key
     for key, aliases in {
@@ -25,6 +26,7 @@ ALIASES = {
         "date": ("Match Date",),
         "time": ("Kick-off", "Kick off", "Start"),
         "division": ("Grade", "Age group", "Competition"),
+        "coach": ("Manager",),
     }.items()
     for alias in aliases
 }

@@ -24,6 +24,8 @@ class ReadContext:
     fixture_names: NameBook = field(init=False)
     club_names: NameBook = field(init=False)
     shared_columns: dict[str, str] = field(default_factory=dict)  # other Shared: key -> header
+    team_shared: dict[str, str] = field(default_factory=dict)  # Shared of Teams: key -> name
+    team_values: dict[str, dict[str, tuple[str, ...]]] = field(default_factory=dict)
     teams: dict[str, Team] = field(default_factory=dict)  # canonical name -> Team
     team_division: dict[str, tuple[str, Place]] = field(default_factory=dict)
     venues: dict[str, Venue] = field(default_factory=dict)  # canonical name -> Venue

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import datetime as dt
 from collections import Counter
 from dataclasses import dataclass, field
 
@@ -11,11 +12,18 @@ from leaguegrid.core.round_robin import pairings, seat_teams
 from leaguegrid.core.seating import Grounds, Season, seat_for_grounds
 from leaguegrid.io.read.columns import Row, Table, require
 from leaguegrid.io.read.context import ReadContext
+from leaguegrid.io.read.names import NameBook
 from leaguegrid.io.read.problems import Place
-from leaguegrid.io.read.rounds_sheet import round_cell
-from leaguegrid.io.read.values import split_values, yes_no
+from leaguegrid.io.read.rounds_sheet import NOT_TIME, round_cell
+from leaguegrid.io.read.values import date_advice, split_values, to_date, to_time, yes_no
 
-TEAMS_COLUMNS = {"team": "Team", "venue": "Venue", "division": "Division", "club": "Club"}
+TEAMS_COLUMNS = {
+    "team": "Team",
+    "venue": "Venue",
+    "division": "Division",
+    "club": "Club",
+    "coach": "Coach",
+}
 FIXTURES_COLUMNS = {
     "fixture": "Fixture",
     "home": "Home",
@@ -24,11 +32,16 @@ FIXTURES_COLUMNS = {
     "pitch": "Pitch",
     "division": "Division",
     "round": "Round",
+    "date": "Date",
+    "time": "Time",
     "played": "Played",
     "score": "Score",
 }
-READ_NOT_NOTED = {"fixture", "home", "away", "venue", "pitch", "division", "round", "played"}
+READ_NOT_NOTED = {
+    "fixture", "home", "away", "venue", "pitch", "division", "round", "date", "time", "played"
+}
 STANDARD_SHARED = {"home", "away", "venue"}
+TEAM_READ = {"team", "venue", "division", "club"}  # Teams columns that are no Shared column
 
 
 @dataclass
@@ -74,6 +87,30 @@ def read_teams(table: Table, ctx: ReadContext) -> TeamsRead:
         if club := table.text(row, "club"):
             team.club = ctx.club_names.add(club, table.at(row, "club"))
     return out
+
+
+def read_team_shared(table: Table, teams: TeamsRead, ctx: ReadContext) -> None:
+    """Each team's values in the Shared columns of the Teams sheet (a coach; a cell may hold
+    several, ';'-separated), spellings matched by the name key."""
+    for key, name in ctx.team_shared.items():
+        book = NameBook(name.casefold(), ctx.report)
+        for row in table.rows:
+            team = ctx.team_names.get(table.text(row, "team") or "")
+            text = table.text(row, key)
+            if team is None or text is None or teams.rows.get(team) != row.number:
+                continue
+            place = table.at(row, key)
+            values = tuple(dict.fromkeys(book.add(v, place) for v in split_values(text)))
+            ctx.team_values.setdefault(team, {})[name] = values
+
+
+def add_team_shared(fixtures: list[Fixture], ctx: ReadContext) -> None:
+    """Give each fixture its teams' values of the Teams sheet's Shared columns."""
+    for fixture in fixtures:
+        for name in ctx.team_shared.values():
+            values = [v for t in fixture.teams for v in ctx.team_values.get(t, {}).get(name, ())]
+            if values:
+                fixture.shared[name] = tuple(dict.fromkeys(values))
 
 
 def generate_fixtures(teams: TeamsRead, ctx: ReadContext, grounds: Grounds) -> list[Fixture]:
@@ -139,12 +176,6 @@ def read_fixtures(table: Table, ctx: ReadContext) -> list[Fixture]:
     """Fixtures from the sheet, one per usable row; every problem reported at its cell."""
     if not _columns_ok(table, ctx):
         return []
-    if table.has("date"):
-        ctx.report.warn(
-            "a Date column in Fixtures is kept as a note: to pin a fixture to a date, "
-            "put the date in the Round column",
-            table.at(None, "date"),
-        )
     drafts: list[_Draft] = []
     labels: dict[str, int] = {}
     for row in table.rows:
@@ -168,7 +199,8 @@ def read_fixtures(table: Table, ctx: ReadContext) -> list[Fixture]:
     fixtures = [d.fixture for d in drafts]
     for d in drafts:
         if d.fixture.pin is not None:
-            ctx.pin_places[d.fixture.label] = table.at(d.row, "round")
+            by = "round" if table.raw(d.row, "round") is not None else "date"
+            ctx.pin_places[d.fixture.label] = table.at(d.row, by)
     return fixtures
 
 
@@ -227,18 +259,32 @@ def _read_row(table: Table, row: Row, ctx: ReadContext) -> _Draft | None:
 
 
 def _read_pin(table: Table, row: Row, fixture: Fixture, ctx: ReadContext) -> None:
-    """Round (a pin), Played and Score: a played fixture is frozen in its round."""
+    """Round or Date (a pin; both must name the same round), Time (the fixture's own kick-off),
+    Played and Score: a played fixture is frozen in its round."""
     value = table.raw(row, "round")
-    if value is not None:
-        rounds, message = round_cell(value, ctx.lookup)
-        if message:
-            ctx.report.error(message, table.at(row, "round"))
-        elif len(rounds) > 1:
-            day = table.text(row, "round")
+    by_round = _rounds_of(table, row, "round", ctx)
+    fixture.time = _kick_off(table, row, ctx)
+    by_date = _rounds_of(table, row, "date", ctx)
+    if by_date and len(by_date) > 1 and fixture.time is not None:
+        by_date = [r.number for r in ctx.lookup.rounds
+                   if r.number in by_date and r.time == fixture.time] or by_date
+    if by_round and by_date and not set(by_round) & set(by_date):
+        ctx.report.error(
+            f"{table.header('date')} {table.text(row, 'date')} is "
+            f"{_rounds_text(by_date)}, but {table.header('round')} says "
+            f"{_rounds_text(by_round)}: give one, or make them agree",
+            table.at(row, "date"),
+        )
+    elif by_round or by_date:
+        rounds = sorted(set(by_round) & set(by_date)) if by_round and by_date else (
+            by_round or by_date)
+        key = "round" if by_round else "date"
+        if len(rounds) > 1:
             ctx.report.error(
-                f"several rounds fall on {day} (rounds {', '.join(map(str, rounds))}): "
-                "write the round number",
-                table.at(row, "round"),
+                f"several rounds fall on {table.text(row, key)} ({_rounds_text(rounds)}): "
+                "write the round number"
+                + (f" in the {table.header('round')} column" if key == "date" else ""),
+                table.at(row, key),
             )
         else:
             fixture.pin = rounds[0]
@@ -258,12 +304,48 @@ def _read_pin(table: Table, row: Row, fixture: Fixture, ctx: ReadContext) -> Non
                 "Played says no but Score holds a result; read as played", table.at(row, "played")
             )
         played = True
-    if played and value is None:
+    if played and value is None and table.raw(row, "date") is None:
         ctx.report.error(
             "the fixture is marked played but has no Round: give the round it was played in",
             table.at(row, "round"),
         )
     fixture.played = played and fixture.pin is not None
+
+
+def _rounds_of(table: Table, row: Row, key: str, ctx: ReadContext) -> list[int]:
+    """The rounds a Round cell (a number or a date) or a Date cell names; [] when blank or
+    after reporting why it names none."""
+    value = table.raw(row, key)
+    if value is None:
+        return []
+    if key == "date" and to_date(value) is None:
+        ctx.report.error(f"not a date: {date_advice(value)}", table.at(row, key))
+        return []
+    rounds, message = round_cell(value, ctx.lookup)
+    if message:
+        ctx.report.error(message, table.at(row, key))
+    return rounds
+
+
+def _rounds_text(rounds: list[int]) -> str:
+    """'round 3', or 'rounds 3, 4'."""
+    if len(rounds) == 1:
+        return f"round {rounds[0]}"
+    return f"rounds {', '.join(map(str, rounds))}"
+
+
+def _kick_off(table: Table, row: Row, ctx: ReadContext) -> dt.time | None:
+    """The Time cell (or the time of a Date cell holding a date and a time), or None."""
+    value = table.raw(row, "time")
+    if value is None:
+        day = table.raw(row, "date")
+        if isinstance(day, dt.datetime) and day.time() != dt.time(0):
+            return day.time()
+        return None
+    moment = to_time(value)
+    if moment is None:
+        ctx.report.error(NOT_TIME, table.at(row, "time"))
+    return moment
 
 
 def _default_labels(drafts: list[_Draft], taken: set[str]) -> None:

@@ -4,6 +4,7 @@ found reported at once. Never raises: anything unexpected becomes a Problem nami
 from __future__ import annotations
 
 import difflib
+from dataclasses import dataclass, field
 from pathlib import Path
 
 from leaguegrid.clashes.graph import build_clash_graph
@@ -22,11 +23,14 @@ from leaguegrid.io.read.context import ReadContext
 from leaguegrid.io.read.fixtures_sheet import (
     FIXTURES_COLUMNS,
     STANDARD_SHARED,
+    TEAM_READ,
     TEAMS_COLUMNS,
     TeamsRead,
+    add_team_shared,
     complete_from_teams,
     generate_fixtures,
     read_fixtures,
+    read_team_shared,
     read_teams,
 )
 from leaguegrid.io.read.ground_limits import ground_limits
@@ -95,10 +99,13 @@ def load_league(path: str | Path, columns: dict[str, str] | None = None) -> Load
 
     `columns` (from the window's column matching) maps our Fixtures column names (Fixture, Home,
     Away, Venue, Pitch, Division, Round, ...) to the file's own; its "Shared" entry lists, ";"-
-    separated, more of the file's columns whose equal values clash."""
+    separated, more of the file's columns whose equal values clash. Entries naming a column the
+    file does not have are listed in the result's `unmatched` (what to do about them is the
+    caller's: app.league drops a remembered matching, and refuses one typed on a command line)."""
     report = Report(str(path))
+    fit = _Fit()
     try:
-        league = _load(Path(path), report, columns or {})
+        league = _load(Path(path), report, columns or {}, fit)
     except Exception as exc:  # the promise: never a traceback, always a Problem
         report.error(
             f"could not be read because of an unexpected error "
@@ -107,10 +114,19 @@ def load_league(path: str | Path, columns: dict[str, str] | None = None) -> Load
         league = None
     if league is not None:
         league.warnings = report.warnings
-    return LoadResult(league, report.problems)
+    return LoadResult(league, report.problems, fit.unmatched, fit.headers)
 
 
-def _load(path: Path, report: Report, columns: dict[str, str]) -> League | None:
+@dataclass
+class _Fit:
+    """How the column matching fits the file: the entries naming a header it lacks, and the
+    Fixtures headers there are."""
+
+    unmatched: list[tuple[str, str]] = field(default_factory=list)
+    headers: list[str] = field(default_factory=list)
+
+
+def _load(path: Path, report: Report, columns: dict[str, str], fit: _Fit) -> League | None:
     try:
         book = read_book(path, lambda name: sheet_key(name) in SHEETS)
     except UnreadableFile as exc:
@@ -133,7 +149,8 @@ def _load(path: Path, report: Report, columns: dict[str, str]) -> League | None:
         report_bad_cells(raw, table, report)
         tables[key] = table
     if (fixtures := tables.get("fixtures")) is not None:
-        _check_mapping(fixtures, columns, report)
+        fit.headers = [c.header for c in fixtures.columns.values()]
+        fit.unmatched = _unmatched(fixtures, tables.get("teams"), columns)
     return _build(path, found, tables, book.kind, report, extra_shared)
 
 
@@ -148,15 +165,20 @@ def _column_mapping(columns: dict[str, str]) -> tuple[dict[str, str], list[str]]
     return rename, shared
 
 
-def _check_mapping(table: Table, columns: dict[str, str], report: Report) -> None:
-    """A column matching that names a column the sheet does not have gets a warning."""
-    headers = {name_key(c.header) for c in table.columns.values()}
-    for ours, theirs in columns.items():
-        if name_key(ours) in FIXTURES_COLUMNS and name_key(theirs) not in headers:
-            report.warn(
-                f"the column matching takes '{theirs}' as {ours}, but the sheet has no such column",
-                Place(table.sheet, table.header_row, theirs),
-            )
+def _unmatched(
+    fixtures: Table, teams: Table | None, columns: dict[str, str]
+) -> list[tuple[str, str]]:
+    """The matching's entries naming a header the sheet lacks (a Shared entry may also name a
+    column of Teams)."""
+    headers = {name_key(c.header) for c in fixtures.columns.values()}
+    also = {name_key(c.header) for c in teams.columns.values()} if teams is not None else set()
+    out = [(ours, theirs) for ours, theirs in columns.items()
+           if name_key(ours) in FIXTURES_COLUMNS and theirs.strip()
+           and name_key(theirs) not in headers]
+    for name in split_values(columns.get("Shared", ""), ";"):
+        if name_key(name) not in headers | also | STANDARD_SHARED:
+            out.append(("Shared", name))
+    return out
 
 
 def _locate_sheets(book: RawBook, report: Report) -> dict[str, str]:
@@ -200,7 +222,9 @@ def _build(
     teams = read_teams(teams_table, ctx) if teams_table is not None else TeamsRead()
     if fixtures_table is None and teams_table is None:
         return None
-    _shared_columns(ctx, fixtures_table)
+    _shared_columns(ctx, fixtures_table, teams_table)
+    if teams_table is not None:
+        read_team_shared(teams_table, teams, ctx)
     if fixtures_table is not None:
         fixtures = read_fixtures(fixtures_table, ctx)
         complete_from_teams(fixtures, ctx)
@@ -209,6 +233,7 @@ def _build(
         limits = ground_limits(ctx, tables.get("blocked"), tables.get("clashes"),
                                tables.get("requests"))
         fixtures = generate_fixtures(teams, ctx, limits)
+    add_team_shared(fixtures, ctx)
     ctx.fixtures = fixtures
     league = League(
         name=ctx.settings.league or path.stem,
@@ -316,9 +341,14 @@ def _fixture_source(
     return None, None
 
 
-def _shared_columns(ctx: ReadContext, fixtures: Table | None) -> None:
-    """Check the Clash on setting's column names; record the other Shared columns to read."""
+def _shared_columns(ctx: ReadContext, fixtures: Table | None, teams: Table | None) -> None:
+    """Check the Clash on setting's column names; record the other columns to read whose equal
+    values clash, of Fixtures or of Teams. A Coach column on Teams clashes unless Settings
+    says otherwise."""
     names = []
+    has_coach = teams is not None and teams.has("coach")
+    if has_coach and ctx.shared_place is None:
+        ctx.settings.shared = (*ctx.settings.shared, TEAMS_COLUMNS["coach"])
     for name in ctx.settings.shared:
         key = name_key(name)
         if key in STANDARD_SHARED:
@@ -326,6 +356,9 @@ def _shared_columns(ctx: ReadContext, fixtures: Table | None) -> None:
         elif fixtures is not None and fixtures.has(key):
             ctx.shared_columns[key] = fixtures.header(key)
             names.append(fixtures.header(key))
+        elif teams is not None and teams.has(key) and key not in TEAM_READ:
+            ctx.team_shared[key] = TEAMS_COLUMNS.get(key) or teams.header(key)
+            names.append(ctx.team_shared[key])
         elif fixtures is None and key == "division":
             ctx.shared_columns[key] = "Division"
             names.append("Division")
@@ -346,6 +379,13 @@ def _shared_columns(ctx: ReadContext, fixtures: Table | None) -> None:
                     "does not have" + suggestion(name, headers),
                     where,
                 )
+    if teams is not None and has_coach and not {"coach"} & {*ctx.team_shared, *ctx.shared_columns}:
+        ctx.report.warn(
+            f"the Teams sheet has a {teams.header('coach')} column, but Clash on does not name "
+            "it, so teams with the same coach may play in the same round",
+            ctx.shared_place or Place(),
+        )
+    ctx.settings.team_shared = tuple(ctx.team_shared.values())
     if names and not {name_key(n) for n in names} & {"home", "away"}:
         ctx.report.warn(
             "Clash on names neither Home nor Away, so a team may get two fixtures in one round",

@@ -32,22 +32,25 @@ SHEETS: list[tuple[str, dict[str, str], list[dict[str, object]], str]] = [
         {"fixture": "Reds v Blues", "home": "Example Reds", "away": "Example Blues",
          "venue": "Example Park", "pitch": 1, "division": DIVISION},
         {"fixture": "Greens v Golds", "home": "Example Greens", "away": "Example Golds",
-         "venue": "Example Oval", "division": DIVISION},
+         "venue": "Example Oval", "division": DIVISION, "time": "10:30"},
         {"fixture": "Blues v Reds", "home": "Example Blues", "away": "Example Reds",
          "venue": "Example Park", "pitch": 1, "division": DIVISION},
         {"fixture": "Golds v Greens", "home": "Example Golds", "away": "Example Greens",
          "venue": "Example Oval", "division": DIVISION},
     ], "One row per game. Home and Away name the teams; Venue where it is played; Round pins "
-       "a fixture to a round; Played (yes) marks a game already played. Leave this sheet "
-       "without rows to have every fixture of a division generated from the Teams sheet."),
+       "a fixture to a round, and so does Date (the date of one of the rounds); Time is the "
+       "fixture's own kick-off in the calendars (otherwise its round's time); Played (yes) "
+       "marks a game already played. Leave this sheet without rows to have every fixture of a "
+       "division generated from the Teams sheet."),
     ("Teams", TEAMS_COLUMNS, [
         {"team": "Example Reds", "venue": "Example Park", "division": DIVISION,
-         "club": "Example Club"},
+         "club": "Example Club", "coach": "Example Coach"},
         {"team": "Example Blues", "venue": "Example Park", "division": DIVISION,
-         "club": "Example Club"},
+         "club": "Example Club", "coach": "Example Coach"},
         {"team": "Example Greens", "venue": "Example Oval", "division": DIVISION},
         {"team": "Example Golds", "venue": "Example Oval", "division": DIVISION},
-    ], "One row per team: its home venue, division and club."),
+    ], "One row per team: its home venue, division, club and coach. Teams with the same "
+       "coach never play in the same round (a coach cannot be in two places)."),
     ("Clashes", PAIR_COLUMNS, [
         {"first": "Reds v Blues", "second": "Golds v Greens", "reason": "same coach (example)"},
         {"first": "Blues v Reds", "second": "Greens v Golds",

@@ -169,15 +169,15 @@ def _date_order(row: DatedFixture) -> tuple:
     return (
         r.date is None,
         r.date or dt.date.min,
-        r.time is None,
-        r.time or dt.time.min,
+        row.time is None,
+        row.time or dt.time.min,
         *row.sort_key(),
     )
 
 
 def _league_row(row: DatedFixture) -> list[object]:
     f, r = row.fixture, row.round
-    return [r.number, r.date, r.time, f.label, f.home, f.away, f.venue, f.pitch, f.division]
+    return [r.number, r.date, row.time, f.label, f.home, f.away, f.venue, f.pitch, f.division]
 
 
 def _team_row(team: str, row: DatedFixture) -> list[object]:
@@ -187,7 +187,7 @@ def _team_row(team: str, row: DatedFixture) -> list[object]:
     return [
         r.number,
         r.date,
-        r.time,
+        row.time,
         f.label,
         "home" if at_home else "away",
         opponent,
@@ -198,7 +198,7 @@ def _team_row(team: str, row: DatedFixture) -> list[object]:
 
 def _venue_row(row: DatedFixture) -> list[object]:
     f, r = row.fixture, row.round
-    return [r.number, r.date, r.time, f.pitch, f.label, f.home, f.away, f.division]
+    return [r.number, r.date, row.time, f.pitch, f.label, f.home, f.away, f.division]
 
 
 GENERATOR_SCOPE = ("breaks, byes, leg gap and the mirrored return half are the schedule "

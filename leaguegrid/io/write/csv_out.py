@@ -27,7 +27,7 @@ def _csv_row(row: DatedFixture) -> list[str]:
     """One fixture's CSV cells, text protected."""
     f, r = row.fixture, row.round
     date = r.date.isoformat() if isinstance(r.date, dt.date) else ""
-    time = r.time.strftime("%H:%M") if isinstance(r.time, dt.time) else ""
+    time = row.time.strftime("%H:%M") if isinstance(row.time, dt.time) else ""
     texts = [f.label, f.home or "", f.away or "", f.venue or "", f.pitch or "", f.division or ""]
     return [str(r.number), date, time, *(protect_text(t) for t in texts)]
 

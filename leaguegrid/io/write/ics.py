@@ -14,7 +14,9 @@ Rules (for the README):
   `Time zone` setting, else the computer's), written in UTC ("...Z"), which every calendar app
   shows in its own local time; no VTIMEZONE is needed. A timed event lasts until the next later
   time slot on the same date; the last slot of a date lasts as long as the slot before it; a
-  lone time lasts 90 minutes. A round with a date and no time becomes an all-day event.
+  lone time lasts 90 minutes. A fixture's own Time (Kick-off) column overrides its round's
+  time, and its event lasts 90 minutes. A round with a date and no time (and a fixture with no
+  Time) becomes an all-day event.
 - A team or club with no fixtures gets no file (a calendar needs at least one event).
 - Every round that holds a fixture must have a date: otherwise nothing is written and
   IcsError names the rounds without one.
@@ -136,13 +138,14 @@ def _event_lines(
     f, r = row.fixture, row.round
     assert r.date is not None
     lines = ["BEGIN:VEVENT", f"UID:{uid}", f"DTSTAMP:{stamp}"]
-    if r.time is None:
+    if row.time is None:
         lines.append(f"DTSTART;VALUE=DATE:{r.date.strftime('%Y%m%d')}")
         end_day = r.date + dt.timedelta(days=1)
         lines.append(f"DTEND;VALUE=DATE:{end_day.strftime('%Y%m%d')}")
     else:
-        start = dt.datetime.combine(r.date, r.time)
-        end = start + dt.timedelta(minutes=minutes[r.number])
+        start = dt.datetime.combine(r.date, row.time)
+        length = DEFAULT_GAME_MINUTES if f.time else minutes[r.number]
+        end = start + dt.timedelta(minutes=length)
         lines.append(f"DTSTART:{_utc_stamp(start.replace(tzinfo=tz))}")
         lines.append(f"DTEND:{_utc_stamp(end.replace(tzinfo=tz))}")
     lines.append(f"SUMMARY:{escape_text(f.label)}")
@@ -217,7 +220,7 @@ def ics_calendars(dated: DatedSchedule) -> list[tuple[str, str, list[DatedFixtur
     league = dated.league
     rows = list(dated.rows)
     _check_dates(rows)
-    rows.sort(key=lambda r: (r.round.date, r.round.time or dt.time.min, *r.sort_key()))
+    rows.sort(key=lambda r: (r.round.date, r.time or dt.time.min, *r.sort_key()))
     teams = team_names(league)
     clubs = club_teams(league, teams)
     out = [("league", league.settings.league or league.name, rows)]

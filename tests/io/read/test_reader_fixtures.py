@@ -409,18 +409,16 @@ def test_shared_names_an_unknown_column(tmp_path):
     assert where(problem) == ("Settings", 2, "Value", "Referees")
 
 
-def test_date_column_and_typo_columns_warn(tmp_path):
+def test_typo_column_warns_and_a_date_needs_rounds_with_dates(tmp_path):
     rows = [["Home", "Away", "Date", "Venu"], ["A", "B", "2025-09-13", "Oak"]]
     result = load_book(tmp_path, {"Fixtures": rows})
     assert [(p.message, where(p)) for p in warnings_of(result)] == [
         ("the column is kept as a note; did you mean 'Venue'?", ("Fixtures", 1, "Venu", None)),
-        (
-            "a Date column in Fixtures is kept as a note: to pin a fixture to a date, put the date "
-            "in the Round column",
-            ("Fixtures", 1, "Date", None),
-        ),
     ]
-    assert result.ok and result.league.fixtures[0].notes == {"Date": "2025-09-13", "Venu": "Oak"}
+    assert [(p.message, where(p)) for p in errors(result)] == [(
+        "a date needs a Rounds sheet (or a Start date in Settings) to find its round; or write "
+        "the round number", ("Fixtures", 2, "Date", "2025-09-13"))]
+    assert result.league.fixtures[0].notes == {"Venu": "Oak"}
 
 
 def test_pitch_column_and_venue_from_teams(tmp_path):
