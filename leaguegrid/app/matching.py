@@ -12,6 +12,7 @@ from leaguegrid.io.read.fixtures_sheet import FIXTURES_COLUMNS
 SHARED = "Shared"  # the entry's name in the dict and the project file (kept for old projects)
 # the names a matching takes on its left, by key: our Fixtures columns, and Clash on (Shared)
 KEYS = {**FIXTURES_COLUMNS, name_key("Clash on"): SHARED, name_key(SHARED): SHARED}
+LISTED = ", ".join([*FIXTURES_COLUMNS, "clash on"])  # as a message lists them
 EXAMPLE = 'home="Home Team",venue=Ground'
 
 
@@ -37,7 +38,7 @@ def parse_columns(text: str) -> dict[str, str]:
         if name is None:
             usual = ALIASES.get(name_key(ours))  # a header word (ground) for a key (venue)
             hint = f"; did you mean {usual!r}?" if usual in KEYS else suggestion(ours, KEYS)
-            raise ColumnsError(f"{ours!r} is not one of our columns ({', '.join(KEYS)})" + hint)
+            raise ColumnsError(f"{ours!r} is not one of our columns ({LISTED})" + hint)
         if not theirs:
             raise ColumnsError(f"{part!r} names no header after '='")
         if name in out:

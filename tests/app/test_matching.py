@@ -13,7 +13,7 @@ from leaguegrid.app.matching import ColumnsError, guess_matching, parse_columns
 from leaguegrid.app.project import Project, save_project
 
 KEYS = ("fixture, home, away, venue, pitch, division, round, date, time, played, score, "
-        "shared")
+        "clash on")
 
 
 def book(path, header):

@@ -66,7 +66,7 @@ def test_columns_matches_headers_of_the_coordinators_own(cli, tmp_path):
 @pytest.mark.parametrize(("value", "message"), [
     ("home", "'home' has no '=': write KEY=HEADER, e.g. home=\"Home Team\",venue=Ground"),
     ("ground=Ground", "'ground' is not one of our columns (fixture, home, away, venue, pitch, "
-                      "division, round, date, time, played, score, shared); did you mean "
+                      "division, round, date, time, played, score, clash on); did you mean "
                       "'venue'?"),
 ])
 def test_a_bad_columns_value_is_a_usage_error(cli, capsys, tmp_path, value, message):
