@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import datetime as dt
 import re
+from collections.abc import Iterable, Sequence
 from dataclasses import dataclass
 
 from leaguegrid.core.model import Fixture, League, RoundInfo, Schedule
@@ -30,6 +31,21 @@ class DatedFixture:
         f = self.fixture
         return (self.round.number, natural_key(f.division), natural_key(f.venue),
                 natural_key(f.pitch), natural_key(f.label))
+
+    def date_order(self) -> tuple:
+        """Date, time, then the round order: how a team or a venue reads its games."""
+        r = self.round
+        return (r.date is None, r.date or dt.date.min, r.time is None, r.time or dt.time.min,
+                *self.sort_key())
+
+    def side(self, team: str) -> str:
+        """'home' or 'away': where `team` plays this fixture."""
+        return "home" if self.fixture.home == team else "away"
+
+    def opponent(self, team: str) -> str | None:
+        """The other team of the fixture, seen from `team`."""
+        f = self.fixture
+        return f.away if f.home == team else f.home
 
 
 @dataclass(frozen=True)
@@ -61,3 +77,28 @@ def club_teams(league: League, teams: list[str]) -> dict[str, set[str]]:
         if team is not None and team.club:
             clubs.setdefault(team.club, set()).add(name)
     return dict(sorted(clubs.items(), key=lambda kv: natural_key(kv[0])))
+
+
+def venue_names(fixtures: Iterable[Fixture]) -> list[str]:
+    """Every venue the fixtures name, in natural order (a sheet or a page each)."""
+    return sorted({f.venue for f in fixtures if f.venue}, key=natural_key)
+
+
+def in_date_order(rows: Iterable[DatedFixture]) -> list[DatedFixture]:
+    """The rows by date, time and round (DatedFixture.date_order)."""
+    return sorted(rows, key=DatedFixture.date_order)
+
+
+def team_fixtures(rows: Sequence[DatedFixture], team: str) -> list[DatedFixture]:
+    """The rows `team` plays in, in the order of `rows`."""
+    return [r for r in rows if team in r.fixture.teams]
+
+
+def venue_fixtures(rows: Sequence[DatedFixture], venue: str) -> list[DatedFixture]:
+    """The rows played at `venue`, in the order of `rows`."""
+    return [r for r in rows if r.fixture.venue == venue]
+
+
+def teams_fixtures(rows: Sequence[DatedFixture], teams: set[str]) -> list[DatedFixture]:
+    """The rows any of `teams` plays in (a club's), in the order of `rows`."""
+    return [r for r in rows if teams.intersection(r.fixture.teams)]
