@@ -18,6 +18,12 @@ def natural_key(text: str | None) -> tuple:
             text or "")
 
 
+def round_order(info: RoundInfo) -> tuple:
+    """Date, time (rounds without them last), then number: the order rounds are played in."""
+    return (info.date is None, info.date or dt.date.min, info.time is None,
+            info.time or dt.time.min, info.number)
+
+
 @dataclass(frozen=True)
 class DatedFixture:
     """A fixture of a schedule with the round it was given."""
@@ -34,9 +40,7 @@ class DatedFixture:
 
     def date_order(self) -> tuple:
         """Date, time, then the round order: how a team or a venue reads its games."""
-        r = self.round
-        return (r.date is None, r.date or dt.date.min, r.time is None, r.time or dt.time.min,
-                *self.sort_key())
+        return (*round_order(self.round), *self.sort_key()[1:])
 
     def side(self, team: str) -> str:
         """'home' or 'away': where `team` plays this fixture."""
