@@ -9,13 +9,18 @@ Rules:
 - Team parts list the team's rounds in date order, a bye as a row of its own, and the totals.
 - Venue parts are a grid: a row per round the venue is used in (date order), a column per pitch
   (one "Fixtures" column where no pitch is given); a cell holds the fixtures, one a line.
+- Where rounds are time slots of one day, the teams without a game are "not playing in this
+  time slot" rather than having a bye.
 - Columns empty in every row are left out; rows keep their text whole (the layout wraps it).
+- The PDF is written through a temporary file moved into place, never over the workbook.
 """
 
 from __future__ import annotations
 
 from dataclasses import dataclass
+from pathlib import Path
 
+from leaguegrid.app.export import ExportFailed
 from leaguegrid.core.dated import (
     DatedFixture,
     in_date_order,
@@ -28,6 +33,7 @@ from leaguegrid.core.dated import (
 )
 from leaguegrid.core.model import League, RoundInfo, Schedule
 from leaguegrid.core.wording import CAUTION, plural, when_text
+from leaguegrid.io.write.atomic import ExportError, atomic_write, refuse_overwriting_input
 from leaguegrid.scheduling.breaks import team_byes
 from leaguegrid.scheduling.dates import dated_fixtures, round_dates
 
@@ -156,3 +162,15 @@ def build_printout(league: League, schedule: Schedule) -> Printout:
     parts += [_venue_part(venue, venue_fixtures(by_date, venue))
               for venue in venue_names(league.fixtures)]
     return Printout(league.settings.league or league.name, CAUTION, tuple(parts))
+
+
+def write_pdf(path: str | Path, data: bytes, league: League) -> Path:
+    """Write the printed schedule's PDF to `path` through a temporary file moved into place,
+    never over the league's own file; raises ExportFailed saying why."""
+    try:
+        refuse_overwriting_input(path, [league.source])
+        with atomic_write(path, "wb") as handle:
+            handle.write(data)
+    except (ExportError, OSError) as err:
+        raise ExportFailed(str(err), []) from err
+    return Path(path)

@@ -39,6 +39,7 @@ from PySide6.QtGui import (
 
 from leaguegrid.app.printout import Part, Printout, Table
 from leaguegrid.core.wording import continued, page_text
+from leaguegrid.engine import Hooks
 
 PAPERS = {"A4": QPageSize.PageSizeId.A4, "Letter": QPageSize.PageSizeId.Letter}
 LETTER_TERRITORIES = (QLocale.Country.UnitedStates, QLocale.Country.Canada)
@@ -136,12 +137,16 @@ class Typesetter:
         lines = len(self.wrap(caution, "footer", self.area.width())) + 1
         return lines * self.line_height("footer") + self.gap
 
-    def lay_out(self, printout: Printout) -> list[Page]:
-        """Every page of the printout, footers numbered 'Page n of N'."""
+    def lay_out(self, printout: Printout, hooks: Hooks | None = None) -> list[Page]:
+        """Every page of the printout, footers numbered 'Page n of N' (progress and cancel by
+        `hooks`, part by part)."""
+        hooks = hooks or Hooks()
         body = QRectF(self.area)
         body.setBottom(self.area.bottom() - self.footer_height(printout.caution))
         pages: list[Page] = []
         for index, part in enumerate(printout.parts):
+            hooks.check()
+            hooks.report(index / len(printout.parts), f"Laying out {part.title}")
             pages += _PartWriter(self, body, printout.league, index, part).pages()
         for number, page in enumerate(pages, start=1):
             self._footer(page, printout.caution, page_text(number, len(pages)))
@@ -328,14 +333,20 @@ def paint_page(painter: QPainter, setter: Typesetter, page: Page) -> None:
         painter.drawText(QPointF(box.rect.left(), box.rect.top() + ascent), box.text)
 
 
-def paint(printout: Printout, device: QPagedPaintDevice) -> list[Page]:
-    """Lay `printout` out on `device` and paint every page (a new page between them); returns
-    the pages as laid out."""
+def paint(printout: Printout, device: QPagedPaintDevice, hooks: Hooks | None = None) -> list[Page]:
+    """Lay `printout` out on `device` and paint every page (a new page between them), reporting
+    progress to `hooks` and stopping (engine.Cancelled) when they are cancelled; returns the
+    pages as laid out."""
+    hooks = hooks or Hooks()
     painter = QPainter(device)
     try:
         setter = Typesetter(device)
-        pages = setter.lay_out(printout)
+        with hooks.window(0.0, 0.5) as laying:
+            pages = setter.lay_out(printout, laying)
         for number, page in enumerate(pages):
+            hooks.check()
+            hooks.report(0.5 + 0.5 * number / len(pages),
+                         f"Painting {page_text(number + 1, len(pages)).lower()}")
             if number:
                 device.newPage()
             paint_page(painter, setter, page)
@@ -344,7 +355,7 @@ def paint(printout: Printout, device: QPagedPaintDevice) -> list[Page]:
         painter.end()
 
 
-def pdf_bytes(printout: Printout, paper: str, title: str = "") -> tuple[bytes, int]:
+def pdf_bytes(printout: Printout, paper: str, hooks: Hooks | None = None) -> tuple[bytes, int]:
     """The printout as a PDF on `paper`, in memory, and its number of pages."""
     data = QByteArray()
     buffer = QBuffer(data)
@@ -352,9 +363,8 @@ def pdf_bytes(printout: Printout, paper: str, title: str = "") -> tuple[bytes, i
     writer = QPdfWriter(buffer)
     writer.setResolution(PDF_DPI)
     writer.setPageLayout(page_layout(paper))
-    writer.setTitle(title or printout.league)
+    writer.setTitle(printout.league)
     writer.setCreator("LeagueGrid")
-    pages = paint(printout, writer)
-    del writer  # finishes the file
+    pages = paint(printout, writer, hooks)  # the painter's end finishes the file
     buffer.close()
     return bytes(data.data()), len(pages)
