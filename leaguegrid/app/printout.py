@@ -143,6 +143,11 @@ def _venue_part(venue: str, rows: list[DatedFixture]) -> Part:
                 _table(columns, cells, keep=2, always=("Round", *columns[2:])))
 
 
+def part_counts(league: League, schedule: Schedule) -> tuple[int, int, int]:
+    """How many round, team and venue parts the printout of `schedule` has (without making it)."""
+    return schedule.rounds, len(team_names(league)), len(venue_names(league.fixtures))
+
+
 def build_printout(league: League, schedule: Schedule) -> Printout:
     """The printout of `schedule`: a part per round, per team and per venue. Raises DatesError
     when the schedule does not match the league (as every export does)."""

@@ -95,7 +95,7 @@ def in_date_order(rows: Iterable[DatedFixture]) -> list[DatedFixture]:
 
 def team_fixtures(rows: Sequence[DatedFixture], team: str) -> list[DatedFixture]:
     """The rows `team` plays in, in the order of `rows`."""
-    return [r for r in rows if team in r.fixture.teams]
+    return [r for r in rows if team in (r.fixture.home, r.fixture.away)]
 
 
 def venue_fixtures(rows: Sequence[DatedFixture], venue: str) -> list[DatedFixture]:

@@ -19,7 +19,8 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from leaguegrid.app.printout import SCHEDULE_HEAD, TEAMS_HEAD, VENUES_HEAD, Printout
+from leaguegrid.app.printout import part_counts
+from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import plural
 from leaguegrid.gui.export_dialog import export_folder, safe_stem
 from leaguegrid.gui.print_pages import PAPERS, default_paper
@@ -36,12 +37,13 @@ def chosen_paper(settings: QSettings) -> str:
 class PdfDialog(QDialog):
     """A file name (in the export folder by default) and the paper; says what the PDF holds."""
 
-    def __init__(self, parent: QWidget, printout: Printout, settings: QSettings) -> None:
+    def __init__(self, parent: QWidget, league: League, schedule: Schedule,
+                 settings: QSettings) -> None:
         super().__init__(parent)
         self.setWindowTitle("Export the schedule as PDF")
         self.settings = settings
-        self.path = QLineEdit(str(export_folder(settings)
-                                  / f"{safe_stem(printout.league)}-schedule.pdf"))
+        stem = safe_stem(league.settings.league or league.name)
+        self.path = QLineEdit(str(export_folder(settings) / f"{stem}-schedule.pdf"))
         self.path.setAccessibleName("PDF file")
         browse = QPushButton("Choose…")
         browse.clicked.connect(self._browse)
@@ -55,11 +57,11 @@ class PdfDialog(QDialog):
         form = QFormLayout()
         form.addRow("File:", row)
         form.addRow("Paper:", self.paper)
+        rounds, teams, venues = part_counts(league, schedule)
         contents = QLabel(
-            f"The schedule by round ({plural(printout.count(SCHEDULE_HEAD), 'round')}), then a "
-            f"page for each team ({printout.count(TEAMS_HEAD)}) and each venue "
-            f"({printout.count(VENUES_HEAD)}); every page carries the caution and its page "
-            "number.")
+            f"The schedule by round ({plural(rounds, 'round')}, each on a new page), then a page "
+            f"for each team ({teams}) and each venue ({venues}); every page carries the caution "
+            "and its page number.")
         contents.setWordWrap(True)
         self.buttons = QDialogButtonBox(QDialogButtonBox.StandardButton.Cancel)
         self.write_button = self.buttons.addButton("Write PDF",

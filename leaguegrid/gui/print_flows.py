@@ -1,6 +1,7 @@
 """File > Print (with a preview) and File > Export PDF: the schedule by round, a page per team
 and per venue (leaguegrid.app.printout), laid out and painted by gui.print_pages. The PDF is
-painted and written as a job of the window's runner (progress, Cancel), off the GUI thread."""
+made, painted and written as a job of the window's runner (progress, Cancel), off the GUI
+thread; the preview's pages are made as a job too, and Qt paints them in the GUI thread."""
 
 from __future__ import annotations
 
@@ -12,6 +13,7 @@ from PySide6.QtPrintSupport import QPrinter, QPrintPreviewDialog
 
 from leaguegrid.app.export import ExportFailed
 from leaguegrid.app.printout import Printout, build_printout, write_pdf
+from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import plural
 from leaguegrid.engine import Hooks
 from leaguegrid.gui.notices import show_dialog
@@ -21,6 +23,7 @@ from leaguegrid.gui.worker import Job
 from leaguegrid.scheduling.dates import DatesError
 
 WRITING_PDF = "Writing the PDF"
+PREPARING = "Preparing the pages"
 
 
 @dataclass(frozen=True)
@@ -32,13 +35,15 @@ class PdfWritten:
     problem: str | None = None
 
 
-def pdf_job(printout: Printout, paper: str, path: str, league: Any, hooks: Hooks) -> PdfWritten:
-    """Paint `printout` on `paper` and write it to `path` (run by the window's runner)."""
-    data, pages = pdf_bytes(printout, paper, hooks)
-    hooks.check()
+def pdf_job(league: League, schedule: Schedule, paper: str, path: str,
+            hooks: Hooks) -> PdfWritten:
+    """Make the printout, paint it on `paper` and write it to `path` (a job of the runner)."""
     try:
+        printout = build_printout(league, schedule)
+        data, pages = pdf_bytes(printout, paper, hooks)
+        hooks.check()
         written = write_pdf(path, data, league)
-    except ExportFailed as err:
+    except (DatesError, ExportFailed) as err:
         return PdfWritten(Path(path), problem=str(err))
     return PdfWritten(written, pages)
 
@@ -46,23 +51,25 @@ def pdf_job(printout: Printout, paper: str, path: str, league: Any, hooks: Hooks
 class PrintFlows:
     """Printing and the PDF for the window's schedule (mixed into the main window)."""
 
-    def printout(self: Any) -> Printout | None:
-        """The window's schedule made ready for paper, or None (said why) when it cannot be."""
+    def print_preview(self: Any) -> None:
+        """Make the printout as a job, then show the print preview (its Print button prints);
+        paper from the locale or the last choice, changeable in the preview's page setup."""
         league, schedule = self.doc.working_league(), self.doc.schedule
         if league is None or schedule is None:
-            return None
-        try:
-            return build_printout(league, schedule)
-        except DatesError as err:
-            self._warn(str(err), "The schedule cannot be printed.")
-            return None
+            return
 
-    def print_preview(self: Any) -> QPrintPreviewDialog | None:
-        """The print preview (its Print button prints); paper from the locale or the last
-        choice, changeable in the preview's page setup."""
-        printout = self.printout()
-        if printout is None:
-            return None
+        def work(_hooks: Hooks) -> Printout | str:
+            try:
+                return build_printout(league, schedule)
+            except DatesError as err:
+                return str(err)
+
+        self.runner.start(Job(PREPARING, work, self._show_preview))
+
+    def _show_preview(self: Any, printout: Printout | str) -> None:
+        if isinstance(printout, str):
+            self._warn(printout, "The schedule cannot be printed.")
+            return
         printer = QPrinter(QPrinter.PrinterMode.HighResolution)
         printer.setPageLayout(page_layout(chosen_paper(self.settings)))
         printer.setDocName(printout.league)
@@ -71,26 +78,24 @@ class PrintFlows:
         dialog.printer = printer  # the dialog does not own it: kept alive with the dialog
         dialog.paintRequested.connect(lambda device: paint(printout, device))
         show_dialog(dialog)
-        return dialog
 
     def export_pdf_dialog(self: Any) -> None:
-        printout = self.printout()
-        if printout is None:
+        league, schedule = self.doc.working_league(), self.doc.schedule
+        if league is None or schedule is None:
             return
-        dialog = PdfDialog(self, printout, self.settings)
-        dialog.accepted.connect(lambda: self.export_pdf(*dialog.choices(), printout))
+        dialog = PdfDialog(self, league, schedule, self.settings)
+        dialog.accepted.connect(lambda: self.export_pdf(*dialog.choices()))
         show_dialog(dialog)
 
-    def export_pdf(self: Any, path: str, paper: str, printout: Printout | None = None) -> None:
-        """Paint and write the PDF at `path` on `paper` as a job; the status line says how
-        many pages were written, or why not."""
-        printout = printout or self.printout()
-        league = self.doc.working_league()
-        if printout is None or league is None:
+    def export_pdf(self: Any, path: str, paper: str) -> None:
+        """Make, paint and write the PDF at `path` on `paper` as a job; the status line says
+        how many pages were written, or why not."""
+        league, schedule = self.doc.working_league(), self.doc.schedule
+        if league is None or schedule is None:
             return
 
         def work(hooks: Hooks) -> PdfWritten:
-            return pdf_job(printout, paper, path, league, hooks)
+            return pdf_job(league, schedule, paper, path, hooks)
 
         self.runner.start(Job(WRITING_PDF, work, self._pdf_written))
 

@@ -99,6 +99,7 @@ class Typesetter:
         self.em = self.metrics["cell"].horizontalAdvance("M")
         self.pad = self.em * 0.3
         self.gap = self.metrics["line"].lineSpacing() * 0.5
+        self._widths: dict[tuple[str, str], float] = {}
         self.option = QTextOption()
         self.option.setWrapMode(QTextOption.WrapMode.WrapAtWordBoundaryOrAnywhere)
 
@@ -106,17 +107,23 @@ class Typesetter:
     def line_height(self, style: str) -> float:
         return self.metrics[style].lineSpacing()
 
+    def advance(self, text: str, style: str) -> float:
+        """The width of `text` on one line (measured once per text and style)."""
+        width = self._widths.get((text, style))
+        if width is None:
+            width = self._widths[(text, style)] = self.metrics[style].horizontalAdvance(text)
+        return width
+
     def width_of(self, text: str, style: str) -> float:
         """The widest line of `text` set on one line each."""
-        return max((self.metrics[style].horizontalAdvance(t) for t in text.split("\n")),
-                   default=0.0)
+        return max((self.advance(t, style) for t in text.split("\n")), default=0.0)
 
     def wrap(self, text: str, style: str, width: float) -> list[str]:
         """`text` broken into lines no wider than `width`: at spaces where it can, anywhere in a
         word longer than the width; a newline always starts a line."""
         out: list[str] = []
         for paragraph in text.split("\n"):
-            if not paragraph or self.metrics[style].horizontalAdvance(paragraph) <= width:
+            if not paragraph or self.advance(paragraph, style) <= width:
                 out.append(paragraph)
                 continue
             layout = QTextLayout(paragraph, self.fonts[style], self.device)
