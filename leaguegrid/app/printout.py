@@ -176,6 +176,8 @@ def write_pdf(path: str | Path, data: bytes, league: League) -> Path:
         refuse_overwriting_input(path, [league.source])
         with atomic_write(path, "wb") as handle:
             handle.write(data)
-    except (ExportError, OSError) as err:
+    except ExportError as err:
         raise ExportFailed(str(err), []) from err
+    except OSError as err:
+        raise ExportFailed(f"cannot write {path}: {err.strerror or err}", []) from err
     return Path(path)

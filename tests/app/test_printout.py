@@ -142,8 +142,10 @@ def test_the_pdf_is_written_whole_and_never_over_the_workbook(tmp_path):
     with pytest.raises(ExportFailed, match="it is the input file"):
         write_pdf(league.source, b"%PDF", league)
     assert Path(league.source).read_bytes() == b"not read"
-    with pytest.raises(ExportFailed):
-        write_pdf(tmp_path / "no such folder" / "x.pdf", b"%PDF", league)
+    missing = tmp_path / "no such folder" / "x.pdf"
+    with pytest.raises(ExportFailed) as failed:
+        write_pdf(missing, b"%PDF", league)
+    assert str(failed.value) == f"cannot write {missing}: No such file or directory"
 
 
 def test_rounds_with_dates_keep_date_order_on_team_pages(tmp_path):

@@ -140,6 +140,21 @@ def test_the_pdf_dialog_offers_the_export_folder_and_the_locale_paper(qtbot, dra
     assert settings.value("printPaper") == "Letter"
 
 
+def test_print_and_pdf_wait_for_a_schedule(window):
+    assert not window.act_print.isEnabled()
+    assert not window.act_pdf.isEnabled()
+    assert "Export P&DF…" in [a.text() for a in window.menuBar().actions()[0].menu().actions()]
+
+
+def test_a_pdf_that_cannot_be_written_says_why(qtbot, drawn, tmp_path):
+    target = tmp_path / "missing" / "x.pdf"
+    drawn.export_pdf(str(target), "A4")
+    qtbot.waitUntil(lambda: not drawn.runner.busy, timeout=60_000)
+    assert drawn.last_error == f"cannot write {target}: No such file or directory"
+    assert drawn.last_export == []
+    assert not target.parent.exists()
+
+
 def test_the_print_preview_paints_every_page(qtbot, drawn):
     printout = build_printout(drawn.doc.working_league(), drawn.doc.schedule)
     drawn.act_print.trigger()
