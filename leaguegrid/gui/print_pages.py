@@ -175,12 +175,11 @@ class Typesetter:
                 for c in columns]
 
     def column_widths(self, table: Table, columns: list[int], width: float) -> list[float]:
-        """Widths of `columns` of `table` filling `width`: each its natural width where all fit,
-        else the narrow ones keep theirs and the wide ones share what is left by their width."""
+        """Widths of `columns` of `table` filling `width`: natural widths grown alike where all
+        fit, else the narrow ones keep theirs and the wide ones share what is left by width."""
         natural = self.natural_widths(table, columns)
-        if sum(natural) <= width:
-            extra = (width - sum(natural)) / len(natural)
-            return [n + extra for n in natural]
+        if sum(natural) <= width:  # room to spare: each column grows by its share of the width
+            return [n * width / sum(natural) for n in natural]
         widths: list[float | None] = [None] * len(natural)
         left, open_ = width, list(range(len(natural)))
         while open_:
