@@ -32,7 +32,7 @@ from leaguegrid.core.dated import (
     venue_names,
 )
 from leaguegrid.core.model import League, RoundInfo, Schedule
-from leaguegrid.core.wording import CAUTION, plural, when_text
+from leaguegrid.core.wording import CAUTION, plural, season_totals, when_text
 from leaguegrid.io.write.atomic import ExportError, atomic_write, refuse_overwriting_input
 from leaguegrid.scheduling.breaks import team_byes
 from leaguegrid.scheduling.dates import dated_fixtures, round_dates
@@ -121,8 +121,7 @@ def _team_part(league: League, team: str, rows: list[DatedFixture], byes: list[R
     lines = tuple(t for t in ((f"Division {known.division}" if known and known.division else ""),
                               (f"Club {known.club}" if known and known.club else "")) if t)
     home = sum(1 for r in rows if r.side(team) == "home")
-    totals = (f"{plural(home, 'home game')}, {plural(len(rows) - home, 'away game')}, "
-              f"{plural(len(byes), 'bye')}")
+    totals = season_totals(home, len(rows) - home, len(byes))
     return Part(TEAMS_HEAD, team, lines,
                 _table(TEAM_COLUMNS, [cells for _key, cells in entries], always=("Round",)),
                 (totals,))

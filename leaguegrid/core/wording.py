@@ -173,6 +173,11 @@ def continued(title: str) -> str:
     return f"{title} (continued)"
 
 
+def season_totals(home: int, away: int, byes: int) -> str:
+    """A team's season in one line: '9 home games, 8 away games, 1 bye'."""
+    return f"{plural(home, 'home game')}, {plural(away, 'away game')}, {plural(byes, 'bye')}"
+
+
 def breaks_text(total: int, bound: int | None) -> str:
     """'Breaks: 8 (lower bound 8: optimal)': a team's two games in a row on the same side,
     against the proven lower bound where one is known."""

@@ -64,7 +64,7 @@ class PrintFlows:
             except DatesError as err:
                 return str(err)
 
-        self.runner.start(Job(PREPARING, work, self._show_preview))
+        self._start_when_free(Job(PREPARING, work, self._show_preview))
 
     def _show_preview(self: Any, printout: Printout | str) -> None:
         if isinstance(printout, str):
@@ -97,7 +97,22 @@ class PrintFlows:
         def work(hooks: Hooks) -> PdfWritten:
             return pdf_job(league, schedule, paper, path, hooks)
 
-        self.runner.start(Job(WRITING_PDF, work, self._pdf_written))
+        self._start_when_free(Job(WRITING_PDF, work, self._pdf_written))
+
+    def _start_when_free(self: Any, job: Job) -> None:
+        """Start `job` once the runner has nothing to do (a new job would cancel a count or a
+        draw that is running), saying so in the status line meanwhile."""
+        if not self.runner.busy:
+            self.runner.start(job)
+            return
+        self.stage_label.setText(f"{job.name}: waiting for {self.runner.current_name} to end…")
+
+        def free(busy: bool) -> None:
+            if not busy:
+                self.runner.busyChanged.disconnect(free)
+                self.runner.start(job)
+
+        self.runner.busyChanged.connect(free)
 
     def _pdf_written(self: Any, outcome: PdfWritten) -> None:
         if outcome.problem is not None:

@@ -155,6 +155,22 @@ def test_a_pdf_that_cannot_be_written_says_why(qtbot, drawn, tmp_path):
     assert not target.parent.exists()
 
 
+def test_a_pdf_asked_for_while_counting_waits_for_the_count(qtbot, drawn, tmp_path):
+    stopped: list[str] = []
+    drawn.runner.cancelled.connect(stopped.append)
+    drawn.report = None
+    drawn.compute_counts()
+    target = tmp_path / "after-count.pdf"
+    drawn.export_pdf(str(target), "A4")
+    assert drawn.runner.current_name == "Counting"
+    assert drawn.stage_label.text() == "Writing the PDF: waiting for Counting to end…"
+    qtbot.waitUntil(lambda: bool(drawn.last_export), timeout=60_000)
+    assert drawn.report is not None  # the count finished: it was not cancelled for the PDF
+    assert stopped == []
+    assert drawn.last_export == [str(target)]
+    assert len(PdfReader(target).pages) == drawn.doc.schedule.rounds + 12 + 9
+
+
 def test_the_print_preview_paints_every_page(qtbot, drawn):
     printout = build_printout(drawn.doc.working_league(), drawn.doc.schedule)
     drawn.act_print.trigger()
