@@ -1,7 +1,9 @@
 """File > Print (with a preview) and File > Export PDF: the schedule by round, a page per team
 and per venue (leaguegrid.app.printout), laid out and painted by gui.print_pages. The PDF is
 made, painted and written as a job of the window's runner (progress, Cancel), off the GUI
-thread; the preview's pages are made as a job too, and Qt paints them in the GUI thread."""
+thread (Qt's "Thread-Support in Qt Modules": QPainter may paint in a thread onto QImage,
+QPrinter and QPicture; QPdfWriter shares QPrinter's PDF engine); the preview's pages are made
+as a job too, and Qt's preview paints them in the GUI thread."""
 
 from __future__ import annotations
 
