@@ -333,10 +333,14 @@ def paint_page(painter: QPainter, setter: Typesetter, page: Page) -> None:
     pen.setWidthF(max(setter.device.logicalDpiX() / 200, 1.0))
     painter.setPen(pen)
     painter.drawLines(page.rules)
+    by_style: dict[str, list[Box]] = {}
     for box in page.boxes:
-        painter.setFont(setter.fonts[box.style])
-        ascent = setter.metrics[box.style].ascent()
-        painter.drawText(QPointF(box.rect.left(), box.rect.top() + ascent), box.text)
+        by_style.setdefault(box.style, []).append(box)
+    for style, boxes in by_style.items():  # one font change per style
+        painter.setFont(setter.fonts[style])
+        ascent = setter.metrics[style].ascent()
+        for box in boxes:
+            painter.drawText(QPointF(box.rect.left(), box.rect.top() + ascent), box.text)
 
 
 def paint(printout: Printout, device: QPagedPaintDevice, hooks: Hooks | None = None) -> list[Page]:
