@@ -305,8 +305,12 @@ class _PartWriter:
 
     def _pieces(self, cells: list[list[str]], header_height: float) -> Iterator[list[list[str]]]:
         """The row as one piece, or in pieces that each fit a fresh page under the header."""
-        full = self.body.height() - header_height - 4 * self.t.gap
-        most = max(1, int((full - 2 * self.t.pad) // self.t.line_height("cell")))
+        t, width = self.t, self.body.width()
+        top_matter = (len(t.wrap(self.head, "head", width)) * t.line_height("head")
+                      + len(t.wrap(continued(self.part.title), "title", width))
+                      * t.line_height("title") + t.gap)
+        full = self.body.height() - top_matter - header_height
+        most = max(1, int((full - 2 * t.pad) // t.line_height("cell")))
         tallest = max(len(c) for c in cells)
         for start in range(0, tallest, most):
             yield [c[start:start + most] for c in cells]

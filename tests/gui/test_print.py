@@ -192,6 +192,18 @@ LONG = "The Very Long Named Under Eleven Girls Development Squad of Kestrelmoor 
 UNBROKEN = "X" * 80
 
 
+def assert_inside(setter: Typesetter, printout, pages) -> None:
+    """Every line inside the page's paint area, no wider than its box, and above the footer
+    unless it is the footer."""
+    footer_top = setter.area.bottom() - setter.footer_height(printout.caution)
+    for page in pages:
+        for box in page.boxes:
+            assert setter.area.contains(box.rect), (box.text, box.rect)
+            assert setter.width_of(box.text, box.style) <= box.rect.width() + 0.5, box.text
+            if box.style != "footer":
+                assert box.rect.bottom() <= footer_top, (box.text, page.part)
+
+
 def wide_league() -> tuple[League, Schedule]:
     """A team named with 80 characters, one named by 80 letters without a space, and a ground of
     twelve pitches."""
@@ -204,6 +216,28 @@ def wide_league() -> tuple[League, Schedule]:
     return League("wide", "", fixtures), Schedule(len(fixtures), assignment)
 
 
+def crowded_league() -> tuple[League, Schedule]:
+    """150 fixtures without teams at one ground in one round: one grid cell taller than a page."""
+    fixtures = [Fixture(f"Session {i}", venue="Hall") for i in range(1, 151)]
+    return League("crowded", "", fixtures), Schedule(1, {f.label: 1 for f in fixtures})
+
+
+def test_a_cell_taller_than_a_page_runs_on_and_never_into_the_footer(qapp):
+    league, schedule = crowded_league()
+    printout = build_printout(league, schedule)
+    writer = QPdfWriter(os.devnull)
+    writer.setResolution(300)
+    writer.setPageLayout(page_layout("A4"))
+    setter = Typesetter(writer)
+    pages = setter.lay_out(printout)
+    venue = [p for p in pages if printout.parts[p.part].title == "Venue Hall"]
+    assert len(venue) >= 2
+    assert_inside(setter, printout, pages)
+    cells = [b.text for p in venue for b in p.boxes if b.style == "cell"]
+    assert [c for c in cells if c.startswith("Session")] == [f"Session {i}"
+                                                             for i in range(1, 151)]
+
+
 def test_a_long_team_name_wraps_inside_the_page_and_a_wide_grid_splits(qapp):
     league, schedule = wide_league()
     printout = build_printout(league, schedule)
@@ -212,10 +246,7 @@ def test_a_long_team_name_wraps_inside_the_page_and_a_wide_grid_splits(qapp):
     writer.setPageLayout(page_layout("A4"))
     setter = Typesetter(writer)
     pages = setter.lay_out(printout)
-    for page in pages:
-        for box in page.boxes:
-            assert setter.area.contains(box.rect), (box.text, box.rect)
-            assert setter.width_of(box.text, box.style) <= box.rect.width() + 0.5, box.text
+    assert_inside(setter, printout, pages)
     for name in (LONG, UNBROKEN):
         title = [p for p in pages if printout.parts[p.part].title == name][0]
         lines = [b.text for b in title.boxes if b.style == "title"]
