@@ -58,7 +58,7 @@ def build_actions(w: Any) -> None:
         ("act_print", "&Print…", w.print_preview, "Ctrl+Alt+P",
          "Print the schedule by round, a page per team and per venue (with a preview first)",
          None),
-        ("act_pdf", "Export P&DF…", w.export_pdf_dialog, "Ctrl+Shift+E",
+        ("act_pdf", "Export PD&F…", w.export_pdf_dialog, "Ctrl+Shift+E",
          "Write the schedule by round, a page per team and per venue as a PDF (A4 or Letter)",
          None),
         ("act_quit", "&Quit", w.close, key.Quit, "", None),

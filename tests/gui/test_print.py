@@ -143,7 +143,7 @@ def test_the_pdf_dialog_offers_the_export_folder_and_the_locale_paper(qtbot, dra
 def test_print_and_pdf_wait_for_a_schedule(window):
     assert not window.act_print.isEnabled()
     assert not window.act_pdf.isEnabled()
-    assert "Export P&DF…" in [a.text() for a in window.menuBar().actions()[0].menu().actions()]
+    assert "Export PD&F…" in [a.text() for a in window.menuBar().actions()[0].menu().actions()]
 
 
 def test_a_pdf_that_cannot_be_written_says_why(qtbot, drawn, tmp_path):
