@@ -9,7 +9,7 @@ from pathlib import Path
 
 import networkx as nx
 
-from leaguegrid.core.dated import DatedSchedule, club_teams, natural_key, team_names
+from leaguegrid.core.dated import DatedSchedule, club_teams, team_names, venue_names
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import breaks_text
 from leaguegrid.io.write import ics
@@ -90,7 +90,7 @@ def ics_file_names(league: League, schedule: Schedule) -> tuple[list[str], str |
 def calendar_sheet_names(league: League) -> list[str]:
     """The sheets an Excel calendar holds, in order (team, venue and club sheets by name)."""
     teams = team_names(league)
-    venues = sorted({f.venue for f in league.fixtures if f.venue}, key=natural_key)
+    venues = venue_names(league.fixtures)
     return (["Calendar", "Summary"] + teams + [f"Venue {v}" for v in venues]
             + [f"Club {c}" for c in club_teams(league, teams)])
 

@@ -195,6 +195,21 @@ def when_text(date: Any, time: Any) -> str:
     return " ".join(p for p in parts if p)
 
 
+def page_text(number: int, total: int) -> str:
+    """A printed page's number in a page footer: 'Page 3 of 12'."""
+    return f"Page {number} of {total}"
+
+
+def continued(title: str) -> str:
+    """The title of a part that runs on to another page: 'Team Herons (continued)'."""
+    return f"{title} (continued)"
+
+
+def season_totals(home: int, away: int, byes: int) -> str:
+    """A team's season in one line: '9 home games, 8 away games, 1 bye'."""
+    return f"{plural(home, 'home game')}, {plural(away, 'away game')}, {plural(byes, 'bye')}"
+
+
 def breaks_text(total: int, bound: int | None) -> str:
     """'Breaks: 8 (lower bound 8: optimal)': a team's two games in a row on the same side,
     against the proven lower bound where one is known."""

@@ -21,6 +21,7 @@ from leaguegrid.gui.file_flows import FileFlows
 from leaguegrid.gui.fixtures_view import FixturesView
 from leaguegrid.gui.import_view import ImportView
 from leaguegrid.gui.notices import APP_NAME, inform, show_dialog, warn
+from leaguegrid.gui.print_flows import PrintFlows
 from leaguegrid.gui.schedule_view import ScheduleView
 from leaguegrid.gui.whatif_view import WhatIfView
 from leaguegrid.gui.work_flows import WorkFlows
@@ -29,7 +30,7 @@ from leaguegrid.gui.worker import Runner
 OPENABLE = (".xlsx", ".csv", ".leaguegrid")
 
 
-class MainWindow(FileFlows, WorkFlows, EditFlows, QMainWindow):
+class MainWindow(FileFlows, WorkFlows, EditFlows, PrintFlows, QMainWindow):
     """One league at a time; every long computation runs in the Runner's worker."""
 
     countsReady = Signal(object)
@@ -161,7 +162,8 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, QMainWindow):
                     self.act_add_clash, self.act_tie, self.act_pin, self.act_unpin):
             act.setEnabled(usable)
         self.act_redraw.setEnabled(usable and has_schedule and self.doc.schedule.seed is not None)
-        self.act_export.setEnabled(usable and has_schedule)
+        for act in (self.act_export, self.act_pdf, self.act_print):
+            act.setEnabled(usable and has_schedule)
         self.act_reload.setEnabled(self.doc.path is not None)
         self.act_mapping.setEnabled(self.doc.path is not None)
 

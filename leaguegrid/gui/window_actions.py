@@ -55,6 +55,12 @@ def build_actions(w: Any) -> None:
         ("act_export", "&Export…", w.export_dialog, "Ctrl+E",
          "Write the schedule as an Excel calendar, iCalendar files or CSV",
          icons.export_icon()),
+        ("act_print", "&Print…", w.print_preview, "Ctrl+Alt+P",
+         "Print the schedule by round, a page per team and per venue (with a preview first)",
+         None),
+        ("act_pdf", "Export PD&F…", w.export_pdf_dialog, "Ctrl+Shift+E",
+         "Write the schedule by round, a page per team and per venue as a PDF (A4 or Letter)",
+         None),
         ("act_quit", "&Quit", w.close, key.Quit, "", None),
         ("act_pin", "&Pin fixture to its round", w.pin_selected, "Ctrl+P",
          "Fix the selected fixture to the round it has in the schedule (or a round you "
@@ -113,7 +119,7 @@ def build_menus(w: Any) -> None:
         act.triggered.connect(lambda _c=False, p=str(path): w.open_path(p))
     groups = {
         file_menu: (w.act_reload, w.act_mapping, None, w.act_save, w.act_save_as, w.act_export,
-                    None, w.act_quit),
+                    w.act_pdf, w.act_print, None, w.act_quit),
         bar.addMenu("&Edit"): (w.act_undo, w.act_redo, None, w.act_pin, w.act_unpin, w.act_tie,
                                w.act_add_clash),
         bar.addMenu("&League"): (w.act_count, w.act_cancel, w.act_budget, None, w.act_draw,

@@ -49,3 +49,10 @@ def test_a_round_reads_its_date_and_time_as_one() -> None:
     assert when_text(dt.date(2025, 9, 6), None) == "2025-09-06"
     assert when_text(None, dt.time(9, 5)) == "09:05"
     assert when_text(None, None) == ""
+
+
+def test_printed_pages_read_plainly() -> None:
+    assert wording.page_text(3, 12) == "Page 3 of 12"
+    assert wording.continued("Venue Tarn Field") == "Venue Tarn Field (continued)"
+    assert wording.season_totals(9, 8, 1) == "9 home games, 8 away games, 1 bye"
+    assert wording.season_totals(1, 1, 0) == "1 home game, 1 away game, 0 byes"

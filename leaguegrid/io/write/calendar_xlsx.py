@@ -36,8 +36,12 @@ from leaguegrid.core.dated import (
     DatedFixture,
     DatedSchedule,
     club_teams,
-    natural_key,
+    in_date_order,
+    team_fixtures,
     team_names,
+    teams_fixtures,
+    venue_fixtures,
+    venue_names,
 )
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import CAUTION, METHODS
@@ -163,18 +167,6 @@ def _write_table(ws: Worksheet, header: Sequence[str], rows: Iterable[Sequence[o
     ws.auto_filter.ref = f"A1:{get_column_letter(len(header))}{last_row}"
 
 
-def _date_order(row: DatedFixture) -> tuple:
-    """Date, time, round, then the round-order key: how a team or venue reads its games."""
-    r = row.round
-    return (
-        r.date is None,
-        r.date or dt.date.min,
-        row.time is None,
-        row.time or dt.time.min,
-        *row.sort_key(),
-    )
-
-
 def _league_row(row: DatedFixture) -> list[object]:
     f, r = row.fixture, row.round
     return [r.number, r.date, row.time, f.label, f.home, f.away, f.venue, f.pitch, f.division]
@@ -182,18 +174,8 @@ def _league_row(row: DatedFixture) -> list[object]:
 
 def _team_row(team: str, row: DatedFixture) -> list[object]:
     f, r = row.fixture, row.round
-    at_home = f.home == team
-    opponent = f.away if at_home else f.home
-    return [
-        r.number,
-        r.date,
-        row.time,
-        f.label,
-        "home" if at_home else "away",
-        opponent,
-        f.venue,
-        f.pitch,
-    ]
+    return [r.number, r.date, row.time, f.label, row.side(team), row.opponent(team), f.venue,
+            f.pitch]
 
 
 def _venue_row(row: DatedFixture) -> list[object]:
@@ -259,7 +241,7 @@ def _add_sheet(
 def build_calendar_workbook(dated: DatedSchedule, summary: CalendarSummary) -> Workbook:
     """The calendar workbook in memory (written by write_calendar_xlsx)."""
     league, schedule, rows = dated.league, dated.schedule, dated.rows
-    by_date = sorted(rows, key=_date_order)
+    by_date = in_date_order(rows)
     wb = Workbook()
     wb.remove(wb.active)
     taken: set[str] = set()
@@ -274,14 +256,13 @@ def build_calendar_workbook(dated: DatedSchedule, summary: CalendarSummary) -> W
         )
     teams = team_names(league)
     for team in teams:
-        mine = [r for r in by_date if team in r.fixture.teams]
+        mine = team_fixtures(by_date, team)
         _add_sheet(wb, taken, team, TEAM_COLUMNS, (_team_row(team, r) for r in mine))
-    venues = sorted({r.fixture.venue for r in rows if r.fixture.venue}, key=natural_key)
-    for venue in venues:
-        here = [r for r in by_date if r.fixture.venue == venue]
+    for venue in venue_names(r.fixture for r in rows):
+        here = venue_fixtures(by_date, venue)
         _add_sheet(wb, taken, f"Venue {venue}", VENUE_COLUMNS, (_venue_row(r) for r in here))
     for club, members in club_teams(league, teams).items():
-        theirs = [r for r in by_date if members.intersection(r.fixture.teams)]
+        theirs = teams_fixtures(by_date, members)
         _add_sheet(wb, taken, f"Club {club}", LEAGUE_COLUMNS, (_league_row(r) for r in theirs))
     wb.active = 0
     return wb

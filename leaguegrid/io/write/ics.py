@@ -33,7 +33,15 @@ import re
 from collections.abc import Iterable, Sequence
 from pathlib import Path
 
-from leaguegrid.core.dated import DatedFixture, DatedSchedule, club_teams, team_names
+from leaguegrid.core.dated import (
+    DatedFixture,
+    DatedSchedule,
+    club_teams,
+    in_date_order,
+    team_fixtures,
+    team_names,
+    teams_fixtures,
+)
 from leaguegrid.core.model import Fixture, League, RoundInfo
 from leaguegrid.core.names import name_key
 from leaguegrid.core.wording import CAUTION
@@ -218,17 +226,13 @@ def _check_dates(rows: Sequence[DatedFixture]) -> None:
 def ics_calendars(dated: DatedSchedule) -> list[tuple[str, str, list[DatedFixture]]]:
     """(file prefix, name, rows in date order) for the league, each team and each club."""
     league = dated.league
-    rows = list(dated.rows)
-    _check_dates(rows)
-    rows.sort(key=lambda r: (r.round.date, r.time or dt.time.min, *r.sort_key()))
+    _check_dates(dated.rows)
+    rows = in_date_order(dated.rows)
     teams = team_names(league)
     clubs = club_teams(league, teams)
     out = [("league", league.settings.league or league.name, rows)]
-    out += [("team", t, [r for r in rows if t in r.fixture.teams]) for t in teams]
-    out += [
-        ("club", c, [r for r in rows if members.intersection(r.fixture.teams)])
-        for c, members in clubs.items()
-    ]
+    out += [("team", t, team_fixtures(rows, t)) for t in teams]
+    out += [("club", c, teams_fixtures(rows, members)) for c, members in clubs.items()]
     return out
 
 
