@@ -103,7 +103,7 @@ def small() -> Workbook:
         ("Herons v Otters", "Wrens v Badgers", "One set of goals at Millbrook Field"),
     ])
     add_sheet(wb, "Settings", ["Setting", "Value"], settings_rows(
-        league="Fenwick Vale Under-11s", start_date=dt.date(2025, 9, 6), every=7,
+        league="Fenwick Vale Under-11s", start_date=dt.date(2027, 9, 4), every=7,
     ))
     return wb
 
@@ -112,7 +112,7 @@ def small() -> Workbook:
 
 CLUB = "Brackenlow"
 GROUND = "Brackenlow Park"
-CLUBDAY = dt.date(2025, 10, 4)
+CLUBDAY = dt.date(2027, 10, 2)
 AGE_GROUPS = ("U8", "U9", "U10", "U11", "U12", "U14")
 
 
@@ -209,9 +209,9 @@ def season() -> Workbook:
     add_sheet(wb, "Teams", ["Team", "Venue", "Division", "Club"], teams)
     add_sheet(wb, "Settings", ["Setting", "Value"], settings_rows(
         league="Hollowmere Junior League",
-        start_date=dt.date(2025, 9, 6),
+        start_date=dt.date(2027, 9, 4),
         every=7,
-        skip="2025-10-25, 2025-12-20, 2025-12-27",
+        skip="2027-10-23, 2027-12-18, 2027-12-25",
         legs=1,
     ))
     return wb
@@ -237,9 +237,9 @@ def bigseason() -> Workbook:
               [(t, v, "Open", c) for t, v, c in teams])
     add_sheet(wb, "Settings", ["Setting", "Value"], settings_rows(
         league="Hollowmere Open League",
-        start_date=dt.date(2025, 8, 30),
+        start_date=dt.date(2027, 8, 28),
         every=7,
-        skip="2025-10-25, 2025-12-20, 2025-12-27",
+        skip="2027-10-23, 2027-12-18, 2027-12-25",
         legs=2,
     ))
     return wb
@@ -301,9 +301,9 @@ def association() -> Workbook:
     clashes = [(f"venue: {a}", f"venue: {b}", "shared car park")
                for a, b in zip(small_grounds[0:24:2], small_grounds[1:24:2], strict=True)]
     add_sheet(wb, "Clashes", ["First", "Second", "Reason"], clashes)
-    start, every = dt.date(2026, 8, 29), 7
-    skip = [dt.date(2026, 10, 24), dt.date(2026, 12, 19), dt.date(2026, 12, 26),
-            dt.date(2027, 2, 13)]
+    start, every = dt.date(2027, 8, 28), 7
+    skip = [dt.date(2027, 10, 23), dt.date(2027, 12, 18), dt.date(2027, 12, 25),
+            dt.date(2028, 2, 12)]
     days = []
     day = start
     while len(days) < 18:
@@ -410,7 +410,7 @@ def schedules() -> Workbook:
          "Ask of the county: these two derbies on different weekends"),
     ])
     add_sheet(wb, "Blocked", ["Team", "Venue", "Round", "Date", "Reason"], [
-        (None, "Tarn Field", None, dt.date(2025, 11, 8), "Ground closed for the autumn fair"),
+        (None, "Tarn Field", None, dt.date(2027, 11, 6), "Ground closed for the autumn fair"),
         (None, "Fernbeck Meadow", 9, None, "Pitch reseeding"),
     ])
     add_sheet(wb, "Venues", ["Venue", "Pitches"], [
@@ -425,9 +425,9 @@ def schedules() -> Workbook:
     add_sheet(wb, "Distances", ["From", "To", "Km"], [(a, b, d) for (a, b), d in km.items()])
     add_sheet(wb, "Settings", ["Setting", "Value"], settings_rows(
         league="Hollowmere Winter Cup",
-        start_date=dt.date(2025, 10, 4),
+        start_date=dt.date(2027, 10, 2),
         every=7,
-        skip="2025-12-27",
+        skip="2027-12-25",
         legs=2,
         max_home_run=2,
         max_away_run=2,

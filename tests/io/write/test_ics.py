@@ -374,12 +374,12 @@ def test_demo_league_calendars(tmp_path, name, rounds):
     def in_round(n: int) -> list[dict]:
         return [ev for label, ev in events.items() if schedule.assignment[label] == n]
 
-    if name == "clubday.xlsx":  # 2025-10-04 in Europe/London is BST, UTC+1; slots of 50 min
+    if name == "clubday.xlsx":  # 2027-10-02 in Europe/London is BST, UTC+1; slots of 50 min
         first = in_round(1)
-        assert {event_start(ev) for ev in first} == {dt.datetime(2025, 10, 4, 8, 0, tzinfo=dt.UTC)}
-        assert {event_end(ev) for ev in first} == {dt.datetime(2025, 10, 4, 8, 50, tzinfo=dt.UTC)}
-    else:  # Start 2025-09-06, every 7 days (the first Skip date, 2025-10-25, is round 8's step)
-        assert {event_start(ev) for ev in in_round(6)} == {dt.date(2025, 10, 11)}
+        assert {event_start(ev) for ev in first} == {dt.datetime(2027, 10, 2, 8, 0, tzinfo=dt.UTC)}
+        assert {event_end(ev) for ev in first} == {dt.datetime(2027, 10, 2, 8, 50, tzinfo=dt.UTC)}
+    else:  # Start 2027-09-04, every 7 days (the first Skip date, 2027-10-23, is round 8's step)
+        assert {event_start(ev) for ev in in_round(6)} == {dt.date(2027, 10, 9)}
     data = b"".join(p.read_bytes() for p in tmp_path.iterdir())
     for clash in league.clash_rows:
         assert clash.reason.encode() not in data
