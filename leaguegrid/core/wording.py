@@ -220,6 +220,20 @@ def breaks_text(total: int, bound: int | None) -> str:
     return f"Breaks: {total} (lower bound {bound})"
 
 
+FAILURE_LIMIT = 200  # characters of a failed job's one sentence; the rest is in the details
+
+
+def failure_sentence(name: str, text: str) -> str:
+    """A failed job in one sentence: 'Counting failed: the workbook is open elsewhere.'; only
+    the first line of `text`, cut to FAILURE_LIMIT characters."""
+    first = next((line.strip() for line in text.splitlines() if line.strip()), "")
+    if not first:
+        first = "an unexpected error"
+    if len(first) > FAILURE_LIMIT:
+        first = first[:FAILURE_LIMIT - 1].rstrip() + "…"
+    return sentence(f"{name} failed: {first}")
+
+
 def sentence(text: str) -> str:
     """Text as a sentence: a capital first letter and one full stop."""
     return (text[:1].upper() + text[1:]).rstrip(".") + "."

@@ -11,7 +11,7 @@ from PySide6.QtGui import QCloseEvent, QDragEnterEvent, QDropEvent
 from PySide6.QtWidgets import QMainWindow, QMessageBox, QTabWidget, QWidget
 
 from leaguegrid import __version__
-from leaguegrid.core.wording import CAUTION, UNSAVED_QUESTION
+from leaguegrid.core.wording import CAUTION, UNSAVED_QUESTION, failure_sentence
 from leaguegrid.gui import icons, procworker, window_actions
 from leaguegrid.gui.clash_view import ClashGraphView
 from leaguegrid.gui.counts_view import CountsView
@@ -193,11 +193,14 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, PrintFlows, QMainWindow):
         self._draw_after_count = None
         self.stage_label.setText(f"{name}: cancelled.")
 
-    def _failed(self, name: str, message: str) -> None:
+    def _failed(self, name: str, message: str, details: str) -> None:
+        """A job that failed: one sentence in the status bar and a box, the traceback behind
+        the box's Show Details button."""
         self._draw_after_count = None
-        self._warn(message, f"{name} failed.")
-        self.last_error = f"{name}: {message}"
-        self.stage_label.setText(f"{name} failed: {message}")
+        text = failure_sentence(name, message)
+        self.last_error = text
+        self.stage_label.setText(text)
+        warn(self, text, details)
 
     def _warn(self, text: str, headline: str | None = None) -> None:
         """Record `text` as the last problem, show it, and say it in a box that never blocks."""

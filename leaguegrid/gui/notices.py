@@ -17,10 +17,12 @@ def show_dialog(dialog: QDialog) -> QDialog:
     return dialog
 
 
-def warn(parent: QWidget, text: str) -> QMessageBox:
-    """Show `text` in a warning box over `parent`."""
+def warn(parent: QWidget, text: str, details: str = "") -> QMessageBox:
+    """Show `text` in a warning box over `parent`; `details` behind its Show Details button."""
     box = QMessageBox(QMessageBox.Icon.Warning, APP_NAME, text, QMessageBox.StandardButton.Ok,
                       parent)
+    if details:
+        box.setDetailedText(details)
     show_dialog(box)
     return box
 

@@ -50,7 +50,7 @@ def _run(message: tuple, out_fd: int, cancel: threading.Event, memo: Memo) -> No
         if cancel.is_set() or isinstance(exc, Cancelled):
             send(out_fd, ("cancelled",))
         else:
-            send(out_fd, ("error", traceback.format_exception_only(type(exc), exc)[-1].strip()))
+            send(out_fd, ("error", str(exc) or type(exc).__name__, traceback.format_exc()))
         return
     if cancel.is_set():
         send(out_fd, ("cancelled",))

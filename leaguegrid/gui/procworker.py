@@ -51,7 +51,11 @@ class RemoteCancelled(Exception):
 
 
 class RemoteError(Exception):
-    """The job in the child process raised; the message is its last traceback line."""
+    """The job in the child process raised: its message, and its traceback as `details`."""
+
+    def __init__(self, message: str, details: str = "") -> None:
+        super().__init__(message)
+        self.details = details
 
 
 def send(fd: int, message: Any) -> None:
@@ -168,7 +172,7 @@ class WorkerProcess:
                 elif kind == "cancelled":
                     raise RemoteCancelled()
                 else:
-                    raise RemoteError(message[1])
+                    raise RemoteError(message[1], message[2] if len(message) > 2 else "")
 
     def _close_pipes(self) -> None:
         for fd in (self._to_child, self._from_child):

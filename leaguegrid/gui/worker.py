@@ -46,7 +46,7 @@ class _Thread(QThread):
     """Runs one job's function; its outcome goes back through queued signals."""
 
     done = Signal(object)
-    error = Signal(str)
+    error = Signal(str, str)  # what went wrong (its message), the details (a traceback)
     stopped = Signal()
 
     def __init__(self, job: Job, progress: Progress, parent: QObject | None = None) -> None:
@@ -61,13 +61,19 @@ class _Thread(QThread):
             if self.job.cancel.is_set() or is_cancellation(exc):
                 self.stopped.emit()
             else:
-                tail = traceback.format_exception_only(type(exc), exc)[-1].strip()
-                self.error.emit(tail)
+                self.error.emit(*failure_of(exc))
             return
         if self.job.cancel.is_set():
             self.stopped.emit()
         else:
             self.done.emit(result)
+
+
+def failure_of(exc: BaseException) -> tuple[str, str]:
+    """(the exception's message, or its type when it has none; the traceback, the engine
+    process's own when the job ran there)."""
+    details = getattr(exc, "details", "") or "".join(traceback.format_exception(exc))
+    return str(exc) or type(exc).__name__, details
 
 
 def is_cancellation(exc: BaseException) -> bool:
@@ -81,7 +87,7 @@ class Runner(QObject):
 
     busyChanged = Signal(bool)
     progressed = Signal(float, str)  # fraction in [0, 1] (or -1 when unknown), stage text
-    failed = Signal(str, str)  # job name, message
+    failed = Signal(str, str, str)  # job name, what went wrong, the details (a traceback)
     cancelled = Signal(str)  # job name
 
     def __init__(self, parent: QObject | None = None) -> None:
@@ -179,13 +185,13 @@ class Runner(QObject):
             if job.on_done is not None:
                 job.on_done(result)
         except Exception as exc:  # showing a result must not take the window down
-            tail = traceback.format_exception_only(type(exc), exc)[-1].strip()
-            self.failed.emit(job.name, f"showing the result failed: {tail}")
+            message, details = failure_of(exc)
+            self.failed.emit(job.name, f"showing the result failed: {message}", details)
         self._next()
 
-    def _on_error(self, message: str) -> None:
+    def _on_error(self, message: str, details: str) -> None:
         job = self._finish()
-        self.failed.emit(job.name, message)
+        self.failed.emit(job.name, message, details)
         self._next()
 
     def _on_stopped(self) -> None:

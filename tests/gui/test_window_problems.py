@@ -135,3 +135,27 @@ def test_exports_default_to_the_documents_folder_not_the_workbooks(qtbot, window
     assert export_folder(settings) != demo_leagues()[0].parent
     settings.setValue("exportFolder", str(demo_leagues()[0].parent.parent))
     assert export_folder(settings) == demo_leagues()[0].parent.parent
+
+
+def test_a_failed_job_says_one_sentence_and_keeps_the_details_behind_a_button(window, qtbot):
+    """Issue 12: a failed job says one sentence (details behind a button); no view is stuck."""
+    from PySide6.QtWidgets import QMessageBox
+
+    from leaguegrid.core.wording import FAILURE_LIMIT
+    from leaguegrid.gui.worker import Job
+
+    def fails(hooks):
+        raise ValueError("the sheet went away\nsecond line of internals " + "x" * 400)
+
+    with qtbot.waitSignal(window.runner.failed, timeout=10_000):
+        window.runner.start(Job("Counting", fails))
+    assert window.last_error == "Counting failed: the sheet went away."
+    assert window.stage_label.text() == window.last_error
+    box = next(b for b in window.findChildren(QMessageBox) if b.isVisible())
+    assert box.text() == "Counting failed: the sheet went away."
+    assert "Traceback" in box.detailedText() and "second line of internals" in box.detailedText()
+    assert not window.runner.busy
+    long = "a" * 500
+    from leaguegrid.core.wording import failure_sentence
+
+    assert len(failure_sentence("Drawing", long)) <= FAILURE_LIMIT + len("Drawing failed: .")
