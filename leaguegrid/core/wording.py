@@ -278,3 +278,54 @@ def stale_matching(file: str, misses: str) -> str:
     """The one-line notice when a remembered column matching no longer fits its file."""
     return (f"The column matching remembered for {file} no longer fits it ({misses}), so it "
             "was dropped and the file read by its own headers.")
+
+
+def counted(value: Any, one: str, many: str) -> str:
+    """A count with its noun, singular for exactly 1: '1 grouping', '6 groupings', an
+    estimate or 'not computed' with the plural."""
+    return f"{full_text(value)} {one if value == 1 and isinstance(value, int) else many}"
+
+
+def guide_numbers(name: str, fixtures: int, clashes: int, fewest: int | None,
+                  row: tuple[int, Any, Any, Any] | None) -> list[tuple[str, str]]:
+    """The guide's 'what the numbers mean', told with the open league's own numbers: (title,
+    text) pairs. `row` is one counted round count: (K, schedules, using every round,
+    groupings)."""
+    out = [("The league", f"{name} has {plural(fixtures, 'fixture')} and "
+            f"{plural(clashes, 'pair')} of fixtures that clash: they share a team, a ground or "
+            "pitch, a coach, an official, or a Clashes or Apart row, so they can never be in "
+            "the same round.")]
+    if fewest is not None:
+        out.append(("Fewest rounds", f"At least {plural(fewest, 'round')} are needed: no "
+                    f"schedule fits in {fewest - 1}, and one fits in {fewest}."))
+    else:
+        out.append(("Fewest rounds", "Not settled yet: count the league (Ctrl+R)."))
+    if row is not None:
+        k, schedules, every, groupings = row
+        out.append(("Schedules", f"With {plural(k, 'round')} there "
+                    f"{'is' if schedules == 1 else 'are'} "
+                    f"{counted(schedules, 'valid schedule', 'valid schedules')}: ways to give each fixture one of "
+                    f"the {k} rounds so that nothing that clashes shares a round (pins, "
+                    "Together and blocked rounds kept). Some of them may leave a round empty."))
+        out.append(("Using every round", f"{full_text(every)} of them "
+                    f"{'puts' if every == 1 else 'put'} at least one fixture in every round."))
+        out.append(("Groupings", f"{counted(groupings, 'grouping', 'groupings')}: the same, with the order "
+                    "of the rounds ignored (which fixtures go together, not when). Groupings "
+                    "ignore pins, so on a league with pins they can be more than the "
+                    "schedules."))
+    out.append(("Breaks", "A break is two home games, or two away games, in a row for one "
+                "team; families notice them. A single round robin of an even number of teams "
+                "needs at least (teams - 2) breaks, and LeagueGrid aims for that."))
+    out.append(("Schedules gained", "What-if: how many times as many schedules there would "
+                "be if one clash reason were waived (the exact number on hover)."))
+    return out
+
+
+GUIDE_STEPS = (
+    "Open your league's workbook (File > Open), or start from a blank one (File > New league).",
+    "Fix what the Workbook tab lists: each problem names its sheet, row and column.",
+    "Count (Ctrl+R) to see the fewest rounds and how many schedules each number of rounds "
+    "allows.",
+    "Draw (Ctrl+D) a schedule for the rounds in the toolbar; move fixtures by dragging them.",
+    "Check each team's season, then export calendars (Ctrl+E) or print (Ctrl+Alt+P).",
+)

@@ -117,6 +117,7 @@ class ClashGraphView(QWidget):
         self.doc = doc
         self.scene = QGraphicsScene(self)
         self.view = GraphView(self.scene)
+        self.view.setAccessibleName("Clash graph: fixtures as dots, clashes as lines")
         self.view.setObjectName("clashGraph")
         self.note = QLabel("Fixtures are dots, clashes are lines (hover a line for its reasons). "
                            "Wheel to zoom, drag to pan, click a fixture to see its clashes.")

@@ -36,7 +36,7 @@ class CountsView(QWidget):
         self.summary.setWordWrap(True)
         self.summary.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
         self.model = CountsModel(self)
-        self.table = row_view("countsTable", self.model)
+        self.table = row_view("countsTable", self.model, "Counts by number of rounds")
         self.table.verticalHeader().setVisible(False)
         self.table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.Stretch)
         self.table.horizontalHeader().setSectionResizeMode(
@@ -44,6 +44,7 @@ class CountsView(QWidget):
         self.table.selectionModel().selectionChanged.connect(self._row_picked)
         self.plot = CountPlot()
         self.polynomial = QPlainTextEdit()
+        self.polynomial.setAccessibleName("Chromatic polynomial")
         self.polynomial.setObjectName("polynomialText")
         self.polynomial.setReadOnly(True)
         self.polynomial.setMaximumHeight(90)

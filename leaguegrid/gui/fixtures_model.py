@@ -11,6 +11,15 @@ from leaguegrid.gui.table_model import ReadOnlyTable, Role, bold_font
 
 COLUMNS = ("Fixture", "Home", "Away", "Venue", "Pitch", "Division", "Pinned round",
            "Round in schedule", "Clash with selected")
+TIPS = (
+    "The fixture's name (its label in the workbook, or home v away)",
+    "The home side", "The away side",
+    "The ground the fixture is played at", "The pitch at that ground, when there are several",
+    "The division, grade or age group",
+    "The round this fixture is fixed to: by the workbook (Round or Date column) or a pin here",
+    "The round the current schedule gives it",
+    "Why this fixture clashes with the selected one (it can never share its round)",
+)
 CLASH_COLUMN = len(COLUMNS) - 1
 
 
@@ -18,7 +27,7 @@ class FixturesModel(ReadOnlyTable):
     """One row per fixture; the fixture's label is behind every cell of its row (UserRole)."""
 
     def __init__(self, parent: Any = None) -> None:
-        super().__init__(COLUMNS, parent=parent)
+        super().__init__(COLUMNS, TIPS, parent)
         self.fixtures: list[Fixture] = []
         self.pins: dict[str, int | None] = {}
         self.tied: dict[str, list[str]] = {}

@@ -23,7 +23,7 @@ class FixturesView(QWidget):
         self.note = QLabel("Right-click a fixture to pin it to a round or to play it together "
                            "with another.")
         self.model = FixturesModel(self)
-        self.table = row_view("fixturesTable", self.model)
+        self.table = row_view("fixturesTable", self.model, "Fixtures")
         self.table.horizontalHeader().setSectionResizeMode(
             QHeaderView.ResizeMode.ResizeToContents)
         self.table.horizontalHeader().setStretchLastSection(True)

@@ -37,6 +37,7 @@ class ImportView(QWidget):
              "warning": icon(QStyle.StandardPixmap.SP_MessageBoxWarning)}, self)
         self.problems = QListView()
         self.problems.setObjectName("problemList")
+        self.problems.setAccessibleName("Problems found in the workbook")
         self.problems.setModel(self.problem_model)
         self.problems.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
         self.problems.activated.connect(self.go_to_problem)
@@ -66,6 +67,7 @@ class ImportView(QWidget):
         self.tables.clear()
         for name, rows in sheets.items():
             table = self._sheet_table(rows)
+            table.setAccessibleName(f"Sheet {name} of the workbook")
             self.tables[name.casefold()] = table
             self.sheets.addTab(table, name)
         self.problem_model.set_problems(problems)

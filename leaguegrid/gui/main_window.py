@@ -18,6 +18,7 @@ from leaguegrid.gui.counts_view import CountsView
 from leaguegrid.gui.document import LeagueDocument
 from leaguegrid.gui.edit_flows import EditFlows
 from leaguegrid.gui.file_flows import FileFlows
+from leaguegrid.gui.help_view import GuideWindow
 from leaguegrid.gui.fixtures_view import FixturesView
 from leaguegrid.gui.import_view import ImportView
 from leaguegrid.gui.notices import APP_NAME, inform, show_dialog, warn
@@ -49,6 +50,7 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, PrintFlows, QMainWindow):
         self._user_rounds = False
         self._draw_after_count: tuple | None = None  # a Draw asked for while counting
         self._discarding = False  # the coordinator chose to close without saving
+        self.guide: GuideWindow | None = None
         self.setWindowIcon(icons.app_icon())
         self.setAcceptDrops(True)
         self._build_views()
@@ -220,6 +222,14 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, PrintFlows, QMainWindow):
         if urls and urls[0].isLocalFile():
             self.open_path(urls[0].toLocalFile())
             event.acceptProposedAction()
+
+    def show_guide(self) -> None:
+        """Help > Guide (F1): the guide beside the window, made once and raised after."""
+        if self.guide is None:
+            self.guide = GuideWindow(self)
+        self.guide.refresh()
+        self.guide.show()
+        self.guide.raise_()
 
     def about(self) -> None:
         inform(self, f"About {APP_NAME}",

@@ -48,6 +48,13 @@ class ScheduleGridModel(ReadOnlyTable):
         self.selected: str | None = None
         self.near: dict[str, list[Reason]] = {}  # label -> why it clashes with the selected
 
+    def column_tip(self, column: int) -> str | None:
+        venue = self.columns[column]
+        if venue == NO_VENUE:
+            return "Fixtures with no venue given, round by round"
+        return (f"Fixtures at {venue}, round by round; drag a fixture to another round to "
+                "move it")
+
     def set_schedule(self, fixtures: Sequence[Fixture], schedule: Schedule | None,
                      titles: Sequence[str], pins: dict[str, int | None],
                      violations: Sequence[Violation]) -> None:

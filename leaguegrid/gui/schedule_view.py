@@ -47,6 +47,7 @@ class ScheduleGrid(QTableView):
         self._press: QPoint | None = None
         self._pressed: str | None = None
         self.setObjectName("scheduleGrid")
+        self.setAccessibleName("Schedule: rounds down, venues across")
         self.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
         self.setSelectionMode(QAbstractItemView.SelectionMode.NoSelection)
         self.setDragDropMode(QAbstractItemView.DragDropMode.DropOnly)

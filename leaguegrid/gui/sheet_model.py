@@ -24,6 +24,9 @@ class SheetModel(ReadOnlyTable):
     def row_count(self) -> int:
         return len(self.rows)
 
+    def column_tip(self, column: int) -> str | None:
+        return f"Column {self.columns[column]} of the sheet, as the workbook holds it"
+
     def row_title(self, row: int) -> str:
         return str(self.numbers[row]) if row < len(self.numbers) else str(row + 1)
 

@@ -65,16 +65,21 @@ class ReadOnlyTable(QAbstractTableModel):
             if horizontal:
                 return self.columns[section] if section < len(self.columns) else None
             return self.row_title(section)
-        if role == Role.ToolTipRole and horizontal and section < len(self.tips):
-            return self.tips[section]
+        if role == Role.ToolTipRole and horizontal and section < len(self.columns):
+            return self.column_tip(section)
         return None
 
+    def column_tip(self, column: int) -> str | None:
+        """What a column holds, in words (its header's tooltip)."""
+        return self.tips[column] if column < len(self.tips) else None
 
-def row_view(name: str, model: ReadOnlyTable) -> QTableView:
+
+def row_view(name: str, model: ReadOnlyTable, label: str) -> QTableView:
     """A table view of `model` whose rows are selected whole, one at a time (`name` is its
-    object name, for styles)."""
+    object name, for styles; `label` what a screen reader calls it)."""
     view = QTableView()
     view.setObjectName(name)
+    view.setAccessibleName(label)
     view.setModel(model)
     view.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
     view.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)

@@ -38,7 +38,7 @@ class WhatIfView(QWidget):
                               "the workbook is never changed, and Undo takes it back.")
         self.summary.setWordWrap(True)
         self.model = ReasonsModel(self)
-        self.table = row_view("whatifTable", self.model)
+        self.table = row_view("whatifTable", self.model, "Clash reasons ranked by schedules gained")
         self.table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
         self.table.horizontalHeader().setSectionResizeMode(0, QHeaderView.ResizeMode.Stretch)
         self.table.selectionModel().selectionChanged.connect(self._selection)

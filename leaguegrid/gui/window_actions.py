@@ -93,6 +93,8 @@ def build_actions(w: Any) -> None:
         ("act_zoom_in", "Zoom &in", w.clash_view.zoom_in, key.ZoomIn, "", None),
         ("act_zoom_out", "Zoom &out", w.clash_view.zoom_out, key.ZoomOut, "", None),
         ("act_zoom_fit", "&Fit graph", w.clash_view.fit, "Ctrl+0", "", None),
+        ("act_guide", "&Guide", w.show_guide, QKeySequence.StandardKey.HelpContents,
+         "What the numbers mean, with this league's own; every shortcut; the cautions", None),
         ("act_about", "&About LeagueGrid", w.about, None, "", None),
     )
     for name, text, slot, shortcut, tip, icon in specs:
@@ -127,7 +129,7 @@ def build_menus(w: Any) -> None:
                                  w.act_whatif),
         bar.addMenu("&View"): (*w.tab_actions, None, w.act_zoom_in, w.act_zoom_out,
                                w.act_zoom_fit),
-        bar.addMenu("&Help"): (w.act_about,),
+        bar.addMenu("&Help"): (w.act_guide, None, w.act_about),
     }
     for menu, actions in groups.items():
         for act in actions:
@@ -146,6 +148,7 @@ def build_toolbar(w: Any) -> None:
     bar.addWidget(QLabel(" Rounds: "))
     w.rounds_box = QSpinBox()
     w.rounds_box.setObjectName("roundsBox")
+    w.rounds_box.setAccessibleName("Rounds")
     w.rounds_box.setRange(1, 999)
     w.rounds_box.setToolTip("K, the number of rounds for drawing schedules and what-if")
     bar.addWidget(w.rounds_box)
