@@ -18,8 +18,8 @@ from leaguegrid.gui.counts_view import CountsView
 from leaguegrid.gui.document import LeagueDocument
 from leaguegrid.gui.edit_flows import EditFlows
 from leaguegrid.gui.file_flows import FileFlows
-from leaguegrid.gui.help_view import GuideWindow
 from leaguegrid.gui.fixtures_view import FixturesView
+from leaguegrid.gui.help_view import GuideWindow
 from leaguegrid.gui.import_view import ImportView
 from leaguegrid.gui.notices import APP_NAME, inform, show_dialog, warn
 from leaguegrid.gui.print_flows import PrintFlows
