@@ -302,17 +302,19 @@ def guide_numbers(name: str, fixtures: int, clashes: int, fewest: int | None,
         out.append(("Fewest rounds", "Not settled yet: count the league (Ctrl+R)."))
     if row is not None:
         k, schedules, every, groupings = row
-        out.append(("Schedules", f"With {plural(k, 'round')} there "
-                    f"{'is' if schedules == 1 else 'are'} "
-                    f"{counted(schedules, 'valid schedule', 'valid schedules')}: ways to give "
-                    f"each fixture one of the {k} rounds so that nothing that clashes shares a round (pins, "
-                    "Together and blocked rounds kept). Some of them may leave a round empty."))
-        out.append(("Using every round", f"{full_text(every)} of them "
-                    f"{'puts' if every == 1 else 'put'} at least one fixture in every round."))
-        out.append(("Groupings", f"{counted(groupings, 'grouping', 'groupings')}: the same, "
-                    "with the order of the rounds ignored (which fixtures go together, not when). Groupings "
-                    "ignore pins, so on a league with pins they can be more than the "
-                    "schedules."))
+        are = "is" if schedules == 1 else "are"
+        out.append(("Schedules", (
+            f"With {plural(k, 'round')} there {are} "
+            f"{counted(schedules, 'valid schedule', 'valid schedules')}: ways to give each "
+            f"fixture one of the {k} rounds so that nothing that clashes shares a round (pins, "
+            "Together and blocked rounds kept). Some of them may leave a round empty.")))
+        put = "puts" if every == 1 else "put"
+        out.append(("Using every round",
+                    f"{full_text(every)} of them {put} at least one fixture in every round."))
+        out.append(("Groupings", (
+            f"{counted(groupings, 'grouping', 'groupings')}: the same, with the order of the "
+            "rounds ignored (which fixtures go together, not when). Groupings ignore pins, so "
+            "on a league with pins they can be more than the schedules.")))
     out.append(("Breaks", "A break is two home games, or two away games, in a row for one "
                 "team; families notice them. A single round robin of an even number of teams "
                 "needs at least (teams - 2) breaks, and LeagueGrid aims for that."))
