@@ -117,21 +117,27 @@ def test_damaged_sheet_xml(tmp_path):
     with zipfile.ZipFile(path, "w") as archive:
         for name, data in parts.items():
             archive.writestr(name, data)
-    assert file_problem(path).startswith("the workbook is damaged and cannot be read (")
+    assert file_problem(path) == (
+        "the workbook is damaged: part xl/worksheets/sheet1.xml is not well-formed XML "
+        "(line 1, column 34)"
+    )
 
 
 def test_csv_not_utf8(tmp_path):
     path = tmp_path / "league.csv"
     path.write_bytes(b"Home,Away\nA,\xff\n")
     assert file_problem(path) == (
-        "the file is not UTF-8 text (byte 13 cannot be read): save it as CSV UTF-8"
+        "the file is not UTF-8 text (byte 13 is 0xFF, perhaps Windows-1252): save it again "
+        'choosing the file type "CSV UTF-8"'
     )
 
 
 def test_csv_utf16(tmp_path):
     path = tmp_path / "league.csv"
     path.write_bytes("Home,Away\n".encode("utf-16"))
-    assert file_problem(path) == "the file is UTF-16 text: save it as CSV UTF-8"
+    assert file_problem(path) == (
+        'the file is UTF-16 text, not UTF-8: save it again choosing the file type "CSV UTF-8"'
+    )
 
 
 def test_csv_with_binary_bytes(tmp_path):
