@@ -18,6 +18,8 @@ MAX_PARTS = 10_000  # parts listed in a workbook's zip directory
 MAX_DATA_ROWS = 50_000  # rows holding data, in one sheet (or the CSV file)
 MAX_DATA_CELLS = 500_000  # cells holding data, in the whole file
 MAX_CSV_LINE_BYTES = MiB  # one line of CSV text
+MAX_CLASH_PAIRS = 400_000  # pairs of fixtures that may not share a round (the clash graph's
+# edges, about 350 bytes each in memory); a season of 2,000 fixtures has about 150,000
 
 
 def size_text(n: int) -> str:
@@ -26,5 +28,6 @@ def size_text(n: int) -> str:
 
 
 def too_large(what: str, limit: str) -> str:
-    """The one sentence of a limit passed: what passed it, then the limit."""
-    return f"the file is too large to read: {what} (the limit is {limit})"
+    """The one sentence of a limit passed: 'the file is too large to read: sheet Fixtures has
+    more than 50,000 rows with data (the limit)'."""
+    return f"the file is too large to read: {what} more than {limit} (the limit)"

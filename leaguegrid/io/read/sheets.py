@@ -63,7 +63,7 @@ def _read_bytes(path: Path) -> bytes:
             raise UnreadableFile("this is a folder, not a file")
         size = path.stat().st_size
         if size > MAX_FILE_BYTES:
-            raise UnreadableFile(too_large(f"it holds {grouped(size)} bytes",
+            raise UnreadableFile(too_large(f"it holds {grouped(size)} bytes,",
                                            size_text(MAX_FILE_BYTES)))
         with open(path, "rb") as handle:
             return handle.read()
@@ -86,9 +86,8 @@ def _read_xlsx(data: bytes, wanted: Callable[[str], bool]) -> RawBook:
 def _open_archive(data: bytes) -> zipfile.ZipFile:
     """The workbook's zip archive, once truncated, damaged, oversized and non-Excel archives are
     told apart."""
-    if (parts := data.count(b"PK\x01\x02")) > MAX_PARTS:  # directory entries
-        raise UnreadableFile(too_large(f"its zip directory lists {grouped(parts)} parts",
-                                       f"{grouped(MAX_PARTS)} parts"))
+    if data.count(b"PK\x01\x02") > MAX_PARTS:  # directory entries
+        raise UnreadableFile(too_large("its zip directory lists", f"{grouped(MAX_PARTS)} parts"))
     try:
         archive = zipfile.ZipFile(io.BytesIO(data))
     except (zipfile.BadZipFile, ValueError, OSError, EOFError, NotImplementedError):
@@ -121,9 +120,8 @@ def _read_csv(data: bytes) -> RawBook:
     _check_text(data)
     if (long := LONG_LINE.search(data)) is not None:
         line = data.count(b"\n", 0, long.start()) + 1
-        raise UnreadableFile(too_large(f"line {line} is longer than "
-                                       f"{size_text(MAX_CSV_LINE_BYTES)}",
-                                       f"{size_text(MAX_CSV_LINE_BYTES)} a line"))
+        raise UnreadableFile(too_large(f"line {grouped(line)} holds",
+                                       f"{size_text(MAX_CSV_LINE_BYTES)}"))
     text = io.TextIOWrapper(io.BytesIO(data), encoding="utf-8-sig", newline="")
     first = text.readline()
     text.seek(0)
@@ -138,13 +136,11 @@ def _read_csv(data: bytes) -> RawBook:
             raw.rows.append((number, values))
             cells += len(values)
             if len(raw.rows) > MAX_DATA_ROWS:
-                raise UnreadableFile(too_large(
-                    f"it has more than {grouped(MAX_DATA_ROWS)} rows with data",
-                    f"{grouped(MAX_DATA_ROWS)} rows"))
+                raise UnreadableFile(too_large("it has",
+                                               f"{grouped(MAX_DATA_ROWS)} rows with data"))
             if cells > MAX_DATA_CELLS:
-                raise UnreadableFile(too_large(
-                    f"it holds more than {grouped(MAX_DATA_CELLS)} values",
-                    f"{grouped(MAX_DATA_CELLS)} values"))
+                raise UnreadableFile(too_large("it holds",
+                                               f"{grouped(MAX_DATA_CELLS)} values"))
     except csv.Error as exc:
         what = ("a value longer than "
                 f"{grouped(csv.field_size_limit())} characters" if "field limit" in str(exc)

@@ -79,8 +79,7 @@ class Workbook:
         except KeyError:
             raise damaged(f"part {part} is missing") from None
         if info.file_size > limit:
-            raise UnreadableFile(too_large(f"part {part} unpacks to more than "
-                                           f"{size_text(limit)}", size_text(limit)))
+            raise UnreadableFile(too_large(f"part {part} unpacks to", size_text(limit)))
         size = 0
         try:
             with self.archive.open(info) as stream:
@@ -99,12 +98,10 @@ class Workbook:
     def _count(self, part: str, size: int, limit: int, added: int) -> None:
         self.unpacked += added
         if size > limit:
-            raise UnreadableFile(too_large(f"part {part} unpacks to more than "
-                                           f"{size_text(limit)}", size_text(limit)))
+            raise UnreadableFile(too_large(f"part {part} unpacks to", size_text(limit)))
         if self.unpacked > MAX_UNPACKED_BYTES:
-            raise UnreadableFile(too_large(
-                f"its parts unpack to more than {size_text(MAX_UNPACKED_BYTES)} together",
-                size_text(MAX_UNPACKED_BYTES)))
+            raise UnreadableFile(too_large("the parts read unpack to",
+                                           f"{size_text(MAX_UNPACKED_BYTES)} together"))
 
     def parse(self, part: str, limit: int, start: Start, end: Callable[[str], None] | None = None,
               text: Callable[[str], None] | None = None) -> None:
@@ -375,9 +372,8 @@ class _SheetReader:
             self.values[column] = value
         self.book.cells += 1
         if self.book.cells > MAX_DATA_CELLS:
-            raise UnreadableFile(too_large(
-                f"it holds more than {grouped(MAX_DATA_CELLS)} cells with data",
-                f"{grouped(MAX_DATA_CELLS)} cells"))
+            raise UnreadableFile(too_large("its sheets hold",
+                                           f"{grouped(MAX_DATA_CELLS)} cells with data"))
 
     def end_row(self) -> None:
         if not self.values:
@@ -385,9 +381,8 @@ class _SheetReader:
         self.raw.rows.append((self.row, self.values))
         self.values = {}
         if len(self.raw.rows) > MAX_DATA_ROWS:
-            raise UnreadableFile(too_large(
-                f"sheet {self.raw.name} has more than {grouped(MAX_DATA_ROWS)} rows with data",
-                f"{grouped(MAX_DATA_ROWS)} rows a sheet"))
+            raise UnreadableFile(too_large(f"sheet {self.raw.name} has",
+                                           f"{grouped(MAX_DATA_ROWS)} rows with data"))
 
 
 def local(name: str) -> str:
