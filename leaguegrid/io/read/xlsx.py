@@ -104,9 +104,10 @@ class Workbook:
                                            f"{size_text(MAX_UNPACKED_BYTES)} together"))
 
     def parse(self, part: str, limit: int, start: Start, end: Callable[[str], None] | None = None,
-              text: Callable[[str], None] | None = None) -> None:
-        """Feed the part's XML to expat: element names without their prefix; a document type
-        declaration is refused before any entity in it is read."""
+              text: Callable[[str], None] | None = None, prefixed: bool = False) -> None:
+        """Feed the part's XML to expat, element names without their prefix (or as written,
+        when `prefixed`: the handlers strip it); a document type declaration is refused before
+        any entity in it is read."""
         parser = ParserCreate()
         parser.buffer_text = True
         parser.buffer_size = 1 << 16
@@ -116,9 +117,13 @@ class Workbook:
 
         parser.StartDoctypeDeclHandler = refuse
         parser.EntityDeclHandler = refuse
-        parser.StartElementHandler = lambda name, attrs: start(local(name), attrs)
-        if end is not None:
-            parser.EndElementHandler = lambda name: end(local(name))
+        if prefixed:
+            parser.StartElementHandler = start
+            parser.EndElementHandler = end
+        else:
+            parser.StartElementHandler = lambda name, attrs: start(local(name), attrs)
+            if end is not None:
+                parser.EndElementHandler = lambda name: end(local(name))
         if text is not None:
             parser.CharacterDataHandler = text
         try:
@@ -227,6 +232,8 @@ class Workbook:
         pieces: list[str] = []
 
         def start(name: str, attrs: dict[str, str]) -> None:
+            if ":" in name:
+                name = name.rpartition(":")[2]
             if name == "si":
                 pieces.clear()
             elif name == "rPh":
@@ -235,6 +242,8 @@ class Workbook:
                 state["in_t"] = True
 
         def end(name: str) -> None:
+            if ":" in name:
+                name = name.rpartition(":")[2]
             if name == "si":
                 strings.append("".join(pieces).replace("x005F_", ""))
             elif name == "rPh":
@@ -246,7 +255,7 @@ class Workbook:
             if state["in_t"]:
                 pieces.append(data)
 
-        self.parse(self.strings_part, MAX_STRINGS_BYTES, start, end, text)
+        self.parse(self.strings_part, MAX_STRINGS_BYTES, start, end, text, prefixed=True)
         return strings
 
     # -- a sheet's cells
@@ -260,13 +269,16 @@ class Workbook:
 
 
 class _SheetReader:
-    """The expat handlers of one worksheet part."""
+    """The expat handlers of one worksheet part. A cell's reference is decoded only when the
+    cell holds something (or the next cell, lacking one, counts on from it)."""
 
     def __init__(self, book: Workbook, name: str) -> None:
         self.book = book
         self.raw = RawSheet(name)
         self.row = 0
         self.column = 0
+        self.ref: str | None = None  # the current cell's reference, not yet decoded
+        self.cell_row = 0  # the row its reference names
         self.values: dict[int, object] = {}
         self.kind = "n"
         self.style = 0
@@ -275,37 +287,34 @@ class _SheetReader:
         self.value: str | None = None
         self.inline: list[str] | None = None
         self.phonetic = 0
-        self.cell_row = 0
 
     def read(self, part: str) -> RawSheet:
-        self.book.parse(part, MAX_SHEET_BYTES, self.start, self.end, self.chars)
+        self.book.parse(part, MAX_SHEET_BYTES, self.start, self.end, self.chars, prefixed=True)
         self.end_row()
         return self.raw
 
     def start(self, name: str, attrs: dict[str, str]) -> None:
+        if ":" in name:
+            name = name.rpartition(":")[2]
         if name == "c":
             ref = attrs.get("r")
-            if ref:
-                letters = ref.rstrip("0123456789")
-                self.column = column_index_from_string(letters)
-                digits = ref[len(letters):]
-                self.cell_row = int(digits) if digits else self.row
-            else:
-                self.column += 1
-                self.cell_row = self.row
+            if ref is None:
+                self.column = self.at()[1] + 1
+            self.ref = ref
             self.kind = attrs.get("t", "n")
-            style = attrs.get("s")
-            self.style = int(style) if style else 0
+            self.style = int(attrs["s"]) if "s" in attrs else 0
             self.formula = False
             self.value = None
             self.inline = None
-        elif name == "v":
-            self.text = []
         elif name == "row":
-            self.end_row()
+            if self.values:
+                self.end_row()
             number = attrs.get("r")
             self.row = int(number) if number else self.row + 1
             self.column = 0
+            self.ref = None
+        elif name == "v":
+            self.text = []
         elif name == "f":
             self.formula = True
         elif name == "is":
@@ -316,8 +325,11 @@ class _SheetReader:
             self.text = []
 
     def end(self, name: str) -> None:
+        if ":" in name:
+            name = name.rpartition(":")[2]
         if name == "c":
-            self.end_cell()
+            if self.value is not None or self.inline is not None or self.formula:
+                self.end_cell()
         elif name == "v":
             self.value = "".join(self.text or ())
             self.text = None
@@ -331,9 +343,21 @@ class _SheetReader:
         if self.text is not None:
             self.text.append(data)
 
+    def at(self) -> tuple[int, int]:
+        """(row, column) of the current cell, decoding its reference (such as 'XFD7')."""
+        if self.ref is not None:
+            letters = self.ref.rstrip("0123456789")
+            digits = self.ref[len(letters):]
+            self.column = column_index_from_string(letters)
+            self.cell_row = int(digits) if digits else self.row
+            self.ref = None
+            return self.cell_row, self.column
+        return self.row, self.column
+
     def end_cell(self) -> None:
         """Keep the cell's value (as openpyxl reads cached values) when it holds one."""
-        raw, row, column, text = self.raw, self.cell_row, self.column, self.value or None
+        raw, text = self.raw, self.value or None
+        row, column = self.at()
         if self.kind == "inlineStr":
             value: object = "".join(self.inline) if self.inline is not None else None
         elif text is None:
