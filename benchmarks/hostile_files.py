@@ -166,18 +166,18 @@ def repeated(chunk: str, total_bytes: int) -> Iterable[str]:
         yield piece
 
 
-def sheet_bomb(path: Path, unpacked: int = 1024 * MiB) -> Path:
+def sheet_bomb(path: Path, unpacked: int = 1024 * MiB, level: int = 9) -> Path:
     """A Fixtures sheet whose rows (the same fixture, without row numbers) unpack to
     `unpacked` bytes from a file of about a thousandth of that."""
     header = row_xml(1, {1: "Home", 2: "Away"})
     row = ('<row><c t="inlineStr"><is><t>Alder</t></is></c>'
            '<c t="inlineStr"><is><t>Birch</t></is></c></row>')
     return write_workbook(
-        path, {"Fixtures": lambda: worksheet([header, *repeated(row, unpacked)])}
+        path, {"Fixtures": lambda: worksheet([header, *repeated(row, unpacked)])}, level=level
     )
 
 
-def strings_bomb(path: Path, unpacked: int = 1024 * MiB) -> Path:
+def strings_bomb(path: Path, unpacked: int = 1024 * MiB, level: int = 9) -> Path:
     """A shared-strings part that unpacks to `unpacked` bytes; the sheet uses its first two."""
     sheet = worksheet([
         row_xml(1, {1: "Home", 2: "Away"}),
@@ -190,7 +190,7 @@ def strings_bomb(path: Path, unpacked: int = 1024 * MiB) -> Path:
         yield from repeated("<si><t>Cedar</t></si>", unpacked)
         yield "</sst>"
 
-    return write_workbook(path, {"Fixtures": sheet}, strings=strings)
+    return write_workbook(path, {"Fixtures": sheet}, strings=strings, level=level)
 
 
 def lie_about_size(path: Path, part: str, claimed: int) -> Path:
@@ -244,13 +244,13 @@ def empty_rows_book(path: Path, empty: int = 1_000_000) -> Path:
 
 def wide_book(path: Path, rows: int = 2000, note_column: int = 16384) -> Path:
     """`rows` fixtures of Home, Away, Venue and a note in `note_column` (16384 = XFD; 4 = D),
-    declared as reaching that column."""
+    declared as reaching that column; no two share a team or ground, so reading dominates."""
     header = {1: "Home", 2: "Away", 3: "Venue", note_column: "Note"}
 
     def body() -> Iterable[str]:
         yield row_xml(1, header)
         for r in range(2, rows + 2):
-            yield row_xml(r, {1: f"Home {r % 40}", 2: f"Away {r % 37}", 3: f"Ground {r % 9}",
+            yield row_xml(r, {1: f"Home {r}", 2: f"Away {r}", 3: f"Ground {r}",
                               note_column: "n"})
 
     last = get_column_letter(note_column)
