@@ -38,7 +38,8 @@ from leaguegrid.io.read.limits import (
 from leaguegrid.io.read.raw import RawSheet, UnreadableFile, cell_name
 
 PIECE = 1 << 20  # bytes unpacked at a time
-WORKSHEET, CHARTSHEET = "/worksheet", "/chartsheet"
+WORKSHEET = "/worksheet"
+OTHER_SHEETS = ("/chartsheet", "/dialogsheet", "/xlMacrosheet", "/xlIntlMacrosheet")
 ZIP_ERRORS = (zipfile.BadZipFile, zlib.error, EOFError, OSError, ValueError,
               NotImplementedError, RuntimeError)
 Start = Callable[[str, dict[str, str]], None]
@@ -191,7 +192,12 @@ class Workbook:
 
     def is_rows(self, name: str) -> bool:
         """Whether the sheet is a worksheet (not a chart sheet, a dialog or a macro sheet)."""
-        return self.parts[name][0].endswith(WORKSHEET)
+        kind, part = self.parts[name]
+        if kind.endswith(WORKSHEET) and part is not None:
+            return True
+        if kind.endswith(OTHER_SHEETS):
+            return False
+        raise damaged(f"sheet {name} has no part in the archive")
 
     def _read_styles(self, part: str) -> None:
         """Which cell styles show a number as a date or time (as openpyxl decides it)."""

@@ -235,3 +235,24 @@ def test_unexpected_failure_becomes_a_problem_naming_the_file(tmp_path, monkeypa
         str(path),
         "could not be read because of an unexpected error (RuntimeError: boom); please report this",
     )
+
+
+def test_previous_schedule_is_read_as_league_files_are(tmp_path):
+    """A schedule to keep (plan --keep) saved as Windows-1252 gets the same sentence as a
+    league CSV, naming the first byte that is not UTF-8."""
+    from leaguegrid.io.read.previous import read_previous
+
+    league = load_league(write_book(tmp_path / "league.xlsx", {"Fixtures": FIXTURES})).league
+    path = tmp_path / "before.csv"
+    path.write_bytes("Fixture;Round\nAlder v Birch;1\nCafé v Damson;2\n".encode("cp1252"))
+    previous = read_previous(path, league)
+    assert [(p.file, p.message) for p in previous.problems] == [(
+        "before.csv",
+        "the file is not UTF-8 text (byte 34 is 0xE9, perhaps Windows-1252): save it again "
+        'choosing the file type "CSV UTF-8"',
+    )]
+    path.write_bytes(b"\xef\xbb\xbfFixture;Round\nAlder v Birch;1\nCedar v Damson;x\n")
+    previous = read_previous(path, league)
+    assert previous.rounds == {"Alder v Birch": 1}
+    assert [(p.row, p.column, p.value, p.message) for p in previous.problems] == [
+        (3, "Round", "x", "not a round number")]
