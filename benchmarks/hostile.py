@@ -36,6 +36,7 @@ CASES: dict[str, tuple[str, Callable[[Path], Path]]] = {
     "100k-rows-xlsx": ("league.xlsx", hf.many_rows_book),
     "100k-rows-csv": ("league.csv", hf.dense_csv),
     "40k-rows-csv": ("league.csv", lambda p: hf.dense_csv(p, 40_000)),
+    "largest-within-limits": ("league.xlsx", hf.largest_within_limits),
     "demo-bigseason": ("league.xlsx",
                        lambda p: p.write_bytes((REPO / "demo_leagues" / "bigseason.xlsx")
                                                .read_bytes()) and p),

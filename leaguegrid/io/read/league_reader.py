@@ -99,7 +99,7 @@ def load_league(path: str | Path, columns: dict[str, str] | None = None) -> Load
         league = None
     if league is not None:
         league.warnings = report.warnings
-    return LoadResult(league, report.problems)
+    return LoadResult(league, report.listed())
 
 
 def _load(path: Path, report: Report, columns: dict[str, str]) -> League | None:
