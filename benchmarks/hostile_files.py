@@ -285,7 +285,7 @@ def hidden_book(path: Path, state: str = "hidden") -> Path:
 
 def largest_within_limits(path: Path) -> Path:
     """A workbook just inside every limit that costs memory at once: 15.9 MB of shared text,
-    48,998 fixtures of six cells (294,000 cells with data) whose teams make 392,000 clashing
+    48,998 fixtures of six cells (294,000 cells with data) whose teams make 294,000 clashing
     pairs. It is read, and its peak is the bound the limits were chosen for (under 300 MB)."""
     def strings() -> Iterable[str]:
         yield f'<?xml version="1.0" encoding="UTF-8"?><sst xmlns="{MAIN}"><si><t>Notes</t></si>'
@@ -301,7 +301,7 @@ def largest_within_limits(path: Path) -> Path:
         yield ('<row r="1">' + "".join(cell_xml(1, c, v) for c, v in enumerate(head, 1))
                + '<c r="F1" t="s"><v>0</v></c></row>')
         for r in range(2, 49_000):
-            yield row_xml(r, {1: f"Home {r % 5444}", 2: f"Away {r % 5444}", 3: f"Ground {r}",
+            yield row_xml(r, {1: f"Home {r % 7000}", 2: f"Away {r % 7000}", 3: f"Ground {r}",
                               4: "U12", 5: f"Ref {r}", 6: f"note {r}"})
 
     return write_workbook(path, {"Fixtures": lambda: worksheet(body())}, strings=strings)

@@ -19,7 +19,7 @@ MAX_DATA_ROWS = 50_000  # rows holding data, in one sheet (or the CSV file)
 MAX_DATA_CELLS = 300_000  # cells holding data, in the whole file
 MAX_CSV_LINE_BYTES = MiB  # one line of CSV text
 MAX_PROBLEMS_LISTED = 1_000  # problems listed for one file; the rest are counted in one line
-MAX_CLASH_PAIRS = 400_000  # pairs of fixtures that may not share a round (the clash graph's
+MAX_CLASH_PAIRS = 300_000  # pairs of fixtures that may not share a round (the clash graph's
 # edges, about 350 bytes each in memory); a season of 2,000 fixtures has about 150,000
 
 
