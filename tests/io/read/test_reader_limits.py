@@ -318,3 +318,32 @@ def test_problems_past_a_thousand_are_counted_not_listed(tmp_path):
     last = result.problems[-1]
     assert (last.message, last.severity, last.file) == (
         "500 more problems are not listed (only the first 1,000 are)", "error", str(path))
+
+
+UTF16 = 'the file is UTF-16 text, not UTF-8: save it again choosing the file type "CSV UTF-8"'
+
+
+@pytest.mark.parametrize("encoding", ["utf-16", "utf-16-le", "utf-16-be"])
+def test_utf16_csv_with_or_without_its_byte_order_mark(tmp_path, encoding):
+    path = tmp_path / "league.csv"
+    path.write_bytes("Home,Away\nAlder,Birch\n".encode(encoding))
+    assert file_problem(path) == UTF16
+
+
+@pytest.mark.parametrize("bom", [b"", b"\xef\xbb\xbf"])
+def test_utf8_csv_with_or_without_its_byte_order_mark(tmp_path, bom):
+    path = tmp_path / "league.csv"
+    path.write_bytes(bom + "Home;Away\nÆble;Birch\n".encode())
+    result = load_league(path)
+    assert result.ok and [f.label for f in result.league.fixtures] == ["Æble v Birch"]
+
+
+def test_windows_1252_csv_names_the_first_byte_that_is_not_utf8(tmp_path):
+    path = tmp_path / "league.csv"
+    text = "Home,Away\n" + "Alder,Birch\n" * 100_000 + "Café,Damson\n"
+    path.write_bytes(text.encode("cp1252"))
+    at = text.index("é") + 1
+    assert file_problem(path) == (
+        f"the file is not UTF-8 text (byte {at:,} is 0xE9, perhaps Windows-1252): save it again "
+        'choosing the file type "CSV UTF-8"'
+    )
