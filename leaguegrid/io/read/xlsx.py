@@ -144,7 +144,8 @@ class Workbook:
     # -- the workbook's structure
 
     def _read_structure(self) -> None:
-        main = "xl/workbook.xml"
+        """Sheet names, states and parts (ECMA-376 Part 1, 18.2.19 sheet), the date system and
+        the date styles, through the package's relationships."""
         found: list[str] = []
 
         def root_rel(name: str, attrs: dict[str, str]) -> None:
@@ -153,7 +154,7 @@ class Workbook:
 
         if "_rels/.rels" in self.archive.NameToInfo:
             self.parse("_rels/.rels", MAX_SMALL_PART_BYTES, root_rel)
-        main = found[0] if found else main
+        main = found[0] if found else "xl/workbook.xml"
         folder = posixpath.dirname(main)
         rels: dict[str, tuple[str, str]] = {}
 
@@ -169,8 +170,7 @@ class Workbook:
 
         def workbook(name: str, attrs: dict[str, str]) -> None:
             if name == "sheet":
-                rid = next((v for k, v in attrs.items() if local(k) == "id" and k != "sheetId"),
-                           None)
+                rid = next((v for k, v in attrs.items() if local(k) == "id"), None)
                 sheets.append((attrs.get("name", ""), attrs.get("state"), rid))
             elif name == "workbookPr" and attrs.get("date1904", "").lower() in ("1", "true"):
                 self.epoch = CALENDAR_MAC_1904
