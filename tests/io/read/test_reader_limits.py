@@ -347,3 +347,20 @@ def test_windows_1252_csv_names_the_first_byte_that_is_not_utf8(tmp_path):
         f"the file is not UTF-8 text (byte {at:,} is 0xE9, perhaps Windows-1252): save it again "
         'choosing the file type "CSV UTF-8"'
     )
+
+
+def test_the_command_says_one_sentence_naming_the_file_and_exits_1(tmp_path, capsys):
+    from leaguegrid.launch import main
+
+    path = hf.sheet_bomb(tmp_path / "league.xlsx", unpacked=129 * MiB, level=1)
+    assert main(["check", str(path)]) == 1
+    out, err = capsys.readouterr()
+    assert out.splitlines() == [
+        "",
+        "Problems: 1 error, 0 warnings",
+        f"{path}: the file is too large to read: part xl/worksheets/sheet1.xml unpacks to more "
+        "than 128 MB (the limit)",
+        "Usable: no",
+    ]
+    assert err == ""
+    assert [p.name for p in tmp_path.iterdir()] == ["league.xlsx"]
