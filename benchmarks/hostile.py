@@ -27,6 +27,10 @@ CASES: dict[str, tuple[str, Callable[[Path], Path]]] = {
         "league.xlsx",
         lambda p: hf.lie_about_size(hf.sheet_bomb(p), "xl/worksheets/sheet1.xml", 60 * hf.MiB),
     ),
+    "empty-bomb-lying": (
+        "league.xlsx",
+        lambda p: hf.lie_about_size(hf.empty_bomb(p), "xl/worksheets/sheet1.xml", 127 * hf.MiB),
+    ),
     "strings-bomb": ("league.xlsx", hf.strings_bomb),
     "entities": ("league.xlsx", hf.entity_book),
     "last-row": ("league.xlsx", hf.far_fixture_book),

@@ -177,6 +177,15 @@ def sheet_bomb(path: Path, unpacked: int = 1024 * MiB, level: int = 9) -> Path:
     )
 
 
+def empty_bomb(path: Path, unpacked: int = 1024 * MiB) -> Path:
+    """A Fixtures sheet of one fixture and then formatted empty cells that unpack to
+    `unpacked` bytes: nothing in it counts as data, so only the size limits stop it."""
+    fixture = row_xml(1, {1: "Home", 2: "Away"}) + row_xml(2, {1: "Alder", 2: "Birch"})
+    row = '<row spans="1:4"><c s="1"/><c s="1"/><c s="1"/><c s="1"/></row>'
+    return write_workbook(path,
+                          {"Fixtures": lambda: worksheet([fixture, *repeated(row, unpacked)])})
+
+
 def strings_bomb(path: Path, unpacked: int = 1024 * MiB, level: int = 9) -> Path:
     """A shared-strings part that unpacks to `unpacked` bytes; the sheet uses its first two."""
     sheet = worksheet([

@@ -38,6 +38,7 @@ from leaguegrid.io.read.limits import (
 from leaguegrid.io.read.raw import RawSheet, UnreadableFile, cell_name
 
 PIECE = 1 << 20  # bytes unpacked at a time
+CHECK_FIRST_BYTES = 16 << 20  # parts larger than this are checked (unpacked once) before parsing
 WORKSHEET = "/worksheet"
 OTHER_SHEETS = ("/chartsheet", "/dialogsheet", "/xlMacrosheet", "/xlIntlMacrosheet")
 ZIP_ERRORS = (zipfile.BadZipFile, zlib.error, EOFError, OSError, ValueError,
@@ -74,19 +75,30 @@ class Workbook:
 
     def pieces(self, part: str, limit: int) -> Iterator[bytes]:
         """The part's bytes, unpacked a piece at a time, stopping at `limit` (and at the
-        workbook's total) whatever the zip directory says."""
+        workbook's total) whatever the zip directory says. A large part is first unpacked
+        once without being kept, so that a checksum that fails stops it before it is parsed."""
         try:
             info = self.archive.getinfo(part)
         except KeyError:
             raise damaged(f"part {part} is missing") from None
         if info.file_size > limit:
             raise UnreadableFile(too_large(f"part {part} unpacks to", size_text(limit)))
-        size = 0
+        if info.file_size > CHECK_FIRST_BYTES:
+            for _ in self._unpack(info, limit):
+                pass
+        for piece in self._unpack(info, limit):
+            self._count(len(piece))
+            yield piece
+
+    def _unpack(self, info: zipfile.ZipInfo, limit: int) -> Iterator[bytes]:
+        part, size = info.filename, 0
         try:
             with self.archive.open(info) as stream:
                 while piece := stream.read(PIECE):
                     size += len(piece)
-                    self._count(part, size, limit, len(piece))
+                    if size > limit:
+                        raise UnreadableFile(too_large(f"part {part} unpacks to",
+                                                       size_text(limit)))
                     yield piece
         except zipfile.BadZipFile as exc:
             if "CRC" in str(exc):
@@ -96,10 +108,9 @@ class Workbook:
             raise UnreadableFile(f"the file is truncated or damaged: part {part} cannot be "
                                  "unpacked") from None
 
-    def _count(self, part: str, size: int, limit: int, added: int) -> None:
+    def _count(self, added: int) -> None:
+        """Count bytes unpacked toward the workbook's total."""
         self.unpacked += added
-        if size > limit:
-            raise UnreadableFile(too_large(f"part {part} unpacks to", size_text(limit)))
         if self.unpacked > MAX_UNPACKED_BYTES:
             raise UnreadableFile(too_large("the parts read unpack to",
                                            f"{size_text(MAX_UNPACKED_BYTES)} together"))
