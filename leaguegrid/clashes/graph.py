@@ -41,6 +41,44 @@ def build_clash_graph(league: League) -> nx.Graph:
     return graph
 
 
+def pair_bound(league: League) -> int:
+    """At most how many clashing pairs build_clash_graph makes, counted from the sizes of the
+    groups it joins (never building them), so that a league too large to hold is refused."""
+    shared = {_key(name) for name in league.settings.shared}
+    sizes: list[int] = []
+    pairs = 0
+    if shared & {"home", "away"}:
+        teams: dict[str, int] = {}
+        for f in league.fixtures:
+            for team in {_key(t) for t in f.teams}:
+                teams[team] = teams.get(team, 0) + 1
+        sizes += teams.values()
+    if "venue" in shared:
+        pitches = {_key(v.name): v.pitches for v in league.venues.values()}
+        venues: dict[str, list[Fixture]] = {}
+        for f in league.fixtures:
+            if f.venue:
+                venues.setdefault(_key(f.venue), []).append(f)
+        for key, at_venue in venues.items():
+            whole = sum(1 for f in at_venue if not f.pitch)
+            if whole and pitches.get(key, 1) <= 1:
+                pairs += whole * (len(at_venue) - 1)
+            by_pitch: dict[str, int] = {}
+            for f in at_venue:
+                if f.pitch:
+                    by_pitch[_key(f.pitch)] = by_pitch.get(_key(f.pitch), 0) + 1
+            sizes += by_pitch.values()
+    values: dict[tuple[str, str], set[str]] = {}
+    for f in league.fixtures:
+        for column, cells in f.shared.items():
+            for value in cells:
+                if value.strip():
+                    values.setdefault((_key(column), _key(value)), set()).add(f.label)
+    sizes += (len(labels) for labels in values.values())
+    pairs += sum(len(c.pairs) for c in league.clash_rows) + len(league.splits)
+    return pairs + sum(k * (k - 1) // 2 for k in sizes)
+
+
 def add_reason(graph: nx.Graph, a: str, b: str, reason: Reason) -> None:
     """Add `reason` to the edge a-b (creating it); a self-pair or an unknown fixture is ignored."""
     if a == b or a not in graph or b not in graph:

@@ -8,8 +8,10 @@ from dataclasses import dataclass
 
 from leaguegrid.core.model import ClashRow, Fixture, Split, Tie
 from leaguegrid.core.names import suggestion
+from leaguegrid.core.wording import grouped
 from leaguegrid.io.read.columns import Row, Table, require
 from leaguegrid.io.read.context import ReadContext
+from leaguegrid.io.read.limits import MAX_CLASH_PAIRS, too_large
 from leaguegrid.io.read.names import NameBook
 from leaguegrid.io.read.problems import Place
 
@@ -120,11 +122,18 @@ def read_clashes(table: Table, resolver: Resolver, order: dict[str, int]) -> lis
     if not (require(table, "first", "First", report) & require(table, "second", "Second", report)):
         return []
     out = []
+    total = 0
     for row in table.rows:
         targets = _two_targets(table, row, resolver, KINDS)
         if targets is None:
             continue
         first, second = targets
+        total += len(first.fixtures) * len(second.fixtures)
+        if total > MAX_CLASH_PAIRS:
+            report.error(too_large(f"sheet {table.sheet or 'Clashes'} keeps apart",
+                                   f"{grouped(MAX_CLASH_PAIRS)} pairs of fixtures"),
+                         Place(table.sheet, row.number))
+            return out
         pairs = _pairs(first, second, order)
         if not pairs:
             _warn_empty(table, row, first, second, resolver)

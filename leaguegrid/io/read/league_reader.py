@@ -7,9 +7,10 @@ import difflib
 from dataclasses import dataclass, field
 from pathlib import Path
 
-from leaguegrid.clashes.graph import build_clash_graph
+from leaguegrid.clashes.graph import build_clash_graph, pair_bound
 from leaguegrid.core.model import Fixture, League, LoadResult
 from leaguegrid.core.names import name_key, suggestion
+from leaguegrid.core.wording import grouped
 from leaguegrid.io.read.clash_rows import (
     PAIR_COLUMNS,
     Resolver,
@@ -34,6 +35,7 @@ from leaguegrid.io.read.fixtures_sheet import (
     read_teams,
 )
 from leaguegrid.io.read.ground_limits import ground_limits
+from leaguegrid.io.read.limits import MAX_CLASH_PAIRS, too_large
 from leaguegrid.io.read.problems import Place, Report
 from leaguegrid.io.read.rounds_sheet import ROUNDS_COLUMNS, RoundLookup, read_rounds
 from leaguegrid.io.read.rules_sheets import (
@@ -114,7 +116,7 @@ def load_league(path: str | Path, columns: dict[str, str] | None = None) -> Load
         league = None
     if league is not None:
         league.warnings = report.warnings
-    return LoadResult(league, report.problems, fit.unmatched, fit.headers)
+    return LoadResult(league, report.listed(), fit.unmatched, fit.headers)
 
 
 @dataclass
@@ -197,6 +199,9 @@ def _locate_sheets(book: RawBook, report: Report) -> dict[str, str]:
                 )
             else:
                 found[key] = name
+                if name in book.hidden:
+                    report.warn(f"sheet {name} is hidden in the workbook; its rows are used",
+                                Place(name))
             continue
         near = difflib.get_close_matches(key, list(SHEETS), n=1, cutoff=SHEET_TYPO_CUTOFF)
         if near and near[0] not in {sheet_key(n) for n in book.sheet_names}:
@@ -246,6 +251,9 @@ def _build(
         settings=ctx.settings,
     )
     _read_rules(league, tables, found, ctx)
+    if pair_bound(league) > MAX_CLASH_PAIRS:
+        report.error(too_large("its fixtures make", f"{grouped(MAX_CLASH_PAIRS)} clashing pairs"))
+        return None
     graph = build_clash_graph(league)
     check_pins(league, graph, ctx.pin_places, report)
     check_ties(league, graph, tables.get("together"), report)

@@ -1,56 +1,40 @@
-"""Raw tables from a league file: an .xlsx workbook (openpyxl, read-only, cached values) or a
-.csv file read as one sheet. The file is read once into memory and never written."""
+"""Raw tables from a league file: an .xlsx workbook (its XML read as a stream, xlsx.py) or a
+.csv file read as one sheet, within the limits of limits.py. The file is read once into memory
+and never written."""
 
 from __future__ import annotations
 
+import codecs
 import csv
 import io
-import warnings
+import re
 import zipfile
-import zlib
 from collections.abc import Callable
-from dataclasses import dataclass, field
 from pathlib import Path
-from typing import Literal
 
-import openpyxl
-from openpyxl.utils import get_column_letter
+from leaguegrid.core.wording import grouped
+from leaguegrid.io.read.limits import (
+    MAX_CSV_LINE_BYTES,
+    MAX_DATA_CELLS,
+    MAX_DATA_ROWS,
+    MAX_FILE_BYTES,
+    MAX_PARTS,
+    size_text,
+    too_large,
+)
+from leaguegrid.io.read.raw import RawBook, RawSheet, UnreadableFile, cell_name
+from leaguegrid.io.read.xlsx import Workbook
 
-MAX_BYTES = 200 * 1024 * 1024
+__all__ = ["RawBook", "RawSheet", "UnreadableFile", "cell_name", "read_book", "sniff_delimiter"]
+
 ZIP_MAGIC = b"PK"
 OLE_MAGIC = b"\xd0\xcf\x11\xe0\xa1\xb1\x1a\xe1"
 ENCRYPTED_STREAM = "EncryptedPackage".encode("utf-16-le")
 UTF16_BOMS = (b"\xff\xfe", b"\xfe\xff")
 TEXT_SUFFIXES = {".csv", ".txt"}
-
-
-class UnreadableFile(Exception):
-    """The file cannot be read as a workbook or CSV; the message says why, for a coordinator."""
-
-
-@dataclass
-class RawSheet:
-    """One sheet's non-empty rows: (row number as shown, {column number: value}), plus the cells
-    whose value is missing (a formula never calculated) or is a spreadsheet error like #REF!."""
-
-    name: str
-    rows: list[tuple[int, dict[int, object]]] = field(default_factory=list)
-    uncalculated: list[tuple[int, int]] = field(default_factory=list)
-    error_cells: list[tuple[int, int, str]] = field(default_factory=list)
-
-
-@dataclass
-class RawBook:
-    """The sheets read from one file; `sheet_names` lists every sheet, read or not."""
-
-    kind: Literal["xlsx", "csv"]
-    sheet_names: list[str]
-    sheets: dict[str, RawSheet]
-
-
-def cell_name(row: int, column: int) -> str:
-    """The spreadsheet name of a cell, e.g. 'B7'."""
-    return f"{get_column_letter(column)}{row}"
+SAVE_AS_UTF8 = 'save it again choosing the file type "CSV UTF-8"'
+UTF8_PIECE = 1 << 20
+LONG_LINE = re.compile(rb"[^\n]{%d}" % (MAX_CSV_LINE_BYTES + 1))
 
 
 def read_book(path: Path, wanted: Callable[[str], bool] = lambda name: True) -> RawBook:
@@ -78,8 +62,9 @@ def _read_bytes(path: Path) -> bytes:
         if path.is_dir():
             raise UnreadableFile("this is a folder, not a file")
         size = path.stat().st_size
-        if size > MAX_BYTES:
-            raise UnreadableFile(f"the file is too large to be a league ({size} bytes)")
+        if size > MAX_FILE_BYTES:
+            raise UnreadableFile(too_large(f"it holds {grouped(size)} bytes,",
+                                           size_text(MAX_FILE_BYTES)))
         with open(path, "rb") as handle:
             return handle.read()
     except FileNotFoundError:
@@ -91,147 +76,111 @@ def _read_bytes(path: Path) -> bytes:
 
 
 def _read_xlsx(data: bytes, wanted: Callable[[str], bool]) -> RawBook:
-    _check_archive(data)
-    with warnings.catch_warnings():
-        warnings.simplefilter("ignore")
-        try:
-            names, sheets, suspects = _read_values(data, wanted)
-            if suspects:
-                formulas = _formula_cells(data, set(suspects))
-                for name, cells in suspects.items():
-                    sheets[name].uncalculated = sorted(cells & formulas.get(name, set()))
-        except UnreadableFile:
-            raise
-        except Exception as exc:  # openpyxl raises many kinds on damaged parts
-            raise UnreadableFile(
-                f"the workbook is damaged and cannot be read ({_brief(exc)})"
-            ) from None
-    return RawBook("xlsx", names, sheets)
+    with _open_archive(data) as archive:
+        book = Workbook(archive)
+        sheets = {name: book.read_sheet(name)
+                  for name in book.names if wanted(name) and book.is_rows(name)}
+    return RawBook("xlsx", book.names, sheets, dict(book.states))
 
 
-def _check_archive(data: bytes) -> None:
-    """Tell truncated, damaged and non-Excel archives apart before openpyxl sees them."""
+def _open_archive(data: bytes) -> zipfile.ZipFile:
+    """The workbook's zip archive, once truncated, damaged, oversized and non-Excel archives are
+    told apart."""
+    if data.count(b"PK\x01\x02") > MAX_PARTS:  # directory entries
+        raise UnreadableFile(too_large("its zip directory lists", f"{grouped(MAX_PARTS)} parts"))
     try:
         archive = zipfile.ZipFile(io.BytesIO(data))
-    except (zipfile.BadZipFile, ValueError, OSError, EOFError):
+    except (zipfile.BadZipFile, ValueError, OSError, EOFError, NotImplementedError):
         raise UnreadableFile(
             "the file is truncated or damaged: it begins like an Excel workbook but is incomplete"
         ) from None
-    with archive:
-        names = set(archive.namelist())
-        if "mimetype" in names and b"opendocument" in _member(archive, "mimetype"):
-            raise UnreadableFile(
-                "this is an OpenDocument spreadsheet (.ods): save it as an Excel workbook (.xlsx)"
-            )
-        if "[Content_Types].xml" not in names or not any(n.startswith("xl/") for n in names):
-            raise UnreadableFile("not a workbook: a zip archive without Excel workbook parts")
-        try:
-            bad = archive.testzip()
-        except (
-            zipfile.BadZipFile,
-            zlib.error,
-            EOFError,
-            OSError,
-            ValueError,
-            NotImplementedError,
-            RuntimeError,
-        ) as exc:
-            raise UnreadableFile(
-                f"the file is truncated or damaged: its parts cannot be unpacked ({_brief(exc)})"
-            ) from None
-        if bad is not None:
-            raise UnreadableFile(f"the workbook is damaged: part {bad} fails its checksum")
+    names = set(archive.namelist())
+    if "mimetype" in names and b"opendocument" in _member(archive, "mimetype"):
+        archive.close()
+        raise UnreadableFile(
+            "this is an OpenDocument spreadsheet (.ods): save it as an Excel workbook (.xlsx)"
+        )
+    if "[Content_Types].xml" not in names or not any(n.startswith("xl/") for n in names):
+        archive.close()
+        raise UnreadableFile("not a workbook: a zip archive without Excel workbook parts")
+    return archive
 
 
 def _member(archive: zipfile.ZipFile, name: str) -> bytes:
+    """The first bytes of a part (never more, whatever it unpacks to)."""
     try:
-        return archive.read(name)[:200]
+        with archive.open(name) as stream:
+            return stream.read(200)
     except Exception:
         return b""
 
 
-def _read_values(
-    data: bytes, wanted: Callable[[str], bool]
-) -> tuple[list[str], dict[str, RawSheet], dict[str, set[tuple[int, int]]]]:
-    """Cached values of the wanted sheets; also the cells that may be uncalculated formulas."""
-    book = openpyxl.load_workbook(io.BytesIO(data), read_only=True, data_only=True)
-    try:
-        names = list(book.sheetnames)
-        sheets: dict[str, RawSheet] = {}
-        suspects: dict[str, set[tuple[int, int]]] = {}
-        for name in names:
-            sheet = book[name]
-            if not wanted(name) or not hasattr(sheet, "iter_rows"):
-                continue
-            raw = RawSheet(name)
-            maybe: set[tuple[int, int]] = set()
-            sheet.reset_dimensions()
-            for cells in sheet.iter_rows():
-                values: dict[int, object] = {}
-                number = 0
-                for cell in cells:
-                    number = getattr(cell, "row", None) or number
-                    if not hasattr(cell, "row"):
-                        continue
-                    value, kind = cell.value, cell.data_type
-                    if kind == "e":
-                        raw.error_cells.append((cell.row, cell.column, str(value)))
-                    elif value is None:
-                        if kind == "n":
-                            maybe.add((cell.row, cell.column))
-                    elif not (isinstance(value, str) and not value.strip()):
-                        values[cell.column] = value
-                if values:
-                    raw.rows.append((number, values))
-            sheets[name] = raw
-            if maybe:
-                suspects[name] = maybe
-        return names, sheets, suspects
-    finally:
-        book.close()
-
-
-def _formula_cells(data: bytes, names: set[str]) -> dict[str, set[tuple[int, int]]]:
-    """The formula cells of the named sheets (a second read-only pass without cached values)."""
-    book = openpyxl.load_workbook(io.BytesIO(data), read_only=True, data_only=False)
-    try:
-        found: dict[str, set[tuple[int, int]]] = {}
-        for name in names:
-            sheet = book[name]
-            sheet.reset_dimensions()
-            cells = found.setdefault(name, set())
-            for row in sheet.iter_rows():
-                for cell in row:
-                    if getattr(cell, "data_type", None) == "f" and hasattr(cell, "row"):
-                        cells.add((cell.row, cell.column))
-        return found
-    finally:
-        book.close()
-
-
 def _read_csv(data: bytes) -> RawBook:
     """A CSV file as the one sheet 'Fixtures': UTF-8 with or without BOM, comma or semicolon."""
-    if data.startswith(UTF16_BOMS):
-        raise UnreadableFile("the file is UTF-16 text: save it as CSV UTF-8")
-    try:
-        text = data.decode("utf-8-sig")
-    except UnicodeDecodeError as exc:
-        raise UnreadableFile(
-            f"the file is not UTF-8 text (byte {exc.start + 1} cannot be read): "
-            "save it as CSV UTF-8"
-        ) from None
-    if "\x00" in text:
-        raise UnreadableFile("not a workbook: the file holds binary data, not CSV text")
+    _check_text(data)
+    if (long := LONG_LINE.search(data)) is not None:
+        line = data.count(b"\n", 0, long.start()) + 1
+        raise UnreadableFile(too_large(f"line {grouped(line)} holds",
+                                       f"{size_text(MAX_CSV_LINE_BYTES)}"))
+    text = io.TextIOWrapper(io.BytesIO(data), encoding="utf-8-sig", newline="")
+    first = text.readline()
+    text.seek(0)
     raw = RawSheet("Fixtures")
+    cells = 0
+    reader = csv.reader(text, delimiter=sniff_delimiter(first))
     try:
-        reader = csv.reader(io.StringIO(text, newline=""), delimiter=sniff_delimiter(text))
         for number, record in enumerate(reader, start=1):
             values = {i: v for i, v in enumerate(record, start=1) if v.strip()}
-            if values:
-                raw.rows.append((number, values))
+            if not values:
+                continue
+            raw.rows.append((number, values))
+            cells += len(values)
+            if len(raw.rows) > MAX_DATA_ROWS:
+                raise UnreadableFile(too_large("it has",
+                                               f"{grouped(MAX_DATA_ROWS)} rows with data"))
+            if cells > MAX_DATA_CELLS:
+                raise UnreadableFile(too_large("it holds",
+                                               f"{grouped(MAX_DATA_CELLS)} values"))
     except csv.Error as exc:
-        raise UnreadableFile(f"the CSV text cannot be read ({_brief(exc)})") from None
+        what = ("a value longer than "
+                f"{grouped(csv.field_size_limit())} characters" if "field limit" in str(exc)
+                else "quoting that is not closed")
+        raise UnreadableFile(
+            f"the CSV text cannot be read: line {reader.line_num} has {what}"
+        ) from None
     return RawBook("csv", ["Fixtures"], {"Fixtures": raw})
+
+
+def _check_text(data: bytes) -> None:
+    """Refuse UTF-16 (with or without its byte order mark), any other text that is not UTF-8
+    (naming the first byte that is not) and binary data; read a piece at a time."""
+    if data.startswith(UTF16_BOMS) or _looks_utf16(data[:4096]):
+        raise UnreadableFile(f"the file is UTF-16 text, not UTF-8: {SAVE_AS_UTF8}")
+    pending, at = b"", 0
+    for start in range(0, len(data), UTF8_PIECE):
+        piece = pending + data[start : start + UTF8_PIECE]
+        at = start - len(pending)
+        final = start + UTF8_PIECE >= len(data)
+        try:
+            _, used = codecs.utf_8_decode(piece, "strict", final)
+        except UnicodeDecodeError as exc:
+            byte = piece[exc.start]
+            raise UnreadableFile(
+                f"the file is not UTF-8 text (byte {grouped(at + exc.start + 1)} is "
+                f"0x{byte:02X}, perhaps Windows-1252): {SAVE_AS_UTF8}"
+            ) from None
+        pending = piece[used:]
+    if b"\x00" in data:
+        raise UnreadableFile("not a workbook: the file holds binary data, not CSV text")
+
+
+def _looks_utf16(head: bytes) -> bool:
+    """UTF-16 without a byte order mark: text whose every other byte is zero."""
+    pairs = len(head) // 2
+    if pairs < 2:
+        return False
+    even, odd = head[0 : pairs * 2 : 2].count(0), head[1 : pairs * 2 : 2].count(0)
+    return max(even, odd) >= 0.4 * pairs and min(even, odd) <= 0.05 * pairs
 
 
 def sniff_delimiter(text: str) -> str:
@@ -246,8 +195,3 @@ def sniff_delimiter(text: str) -> str:
                 return ","
             return ";" if semicolons > commas else ","
     return ","
-
-
-def _brief(exc: BaseException) -> str:
-    text = str(exc).strip() or type(exc).__name__
-    return text if len(text) <= 160 else text[:157] + "..."

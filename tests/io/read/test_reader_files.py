@@ -117,21 +117,27 @@ def test_damaged_sheet_xml(tmp_path):
     with zipfile.ZipFile(path, "w") as archive:
         for name, data in parts.items():
             archive.writestr(name, data)
-    assert file_problem(path).startswith("the workbook is damaged and cannot be read (")
+    assert file_problem(path) == (
+        "the workbook is damaged: part xl/worksheets/sheet1.xml is not well-formed XML "
+        "(line 1, column 34)"
+    )
 
 
 def test_csv_not_utf8(tmp_path):
     path = tmp_path / "league.csv"
     path.write_bytes(b"Home,Away\nA,\xff\n")
     assert file_problem(path) == (
-        "the file is not UTF-8 text (byte 13 cannot be read): save it as CSV UTF-8"
+        "the file is not UTF-8 text (byte 13 is 0xFF, perhaps Windows-1252): save it again "
+        'choosing the file type "CSV UTF-8"'
     )
 
 
 def test_csv_utf16(tmp_path):
     path = tmp_path / "league.csv"
     path.write_bytes("Home,Away\n".encode("utf-16"))
-    assert file_problem(path) == "the file is UTF-16 text: save it as CSV UTF-8"
+    assert file_problem(path) == (
+        'the file is UTF-16 text, not UTF-8: save it again choosing the file type "CSV UTF-8"'
+    )
 
 
 def test_csv_with_binary_bytes(tmp_path):
@@ -229,3 +235,24 @@ def test_unexpected_failure_becomes_a_problem_naming_the_file(tmp_path, monkeypa
         str(path),
         "could not be read because of an unexpected error (RuntimeError: boom); please report this",
     )
+
+
+def test_previous_schedule_is_read_as_league_files_are(tmp_path):
+    """A schedule to keep (plan --keep) saved as Windows-1252 gets the same sentence as a
+    league CSV, naming the first byte that is not UTF-8."""
+    from leaguegrid.io.read.previous import read_previous
+
+    league = load_league(write_book(tmp_path / "league.xlsx", {"Fixtures": FIXTURES})).league
+    path = tmp_path / "before.csv"
+    path.write_bytes("Fixture;Round\nAlder v Birch;1\nCafé v Damson;2\n".encode("cp1252"))
+    previous = read_previous(path, league)
+    assert [(p.file, p.message) for p in previous.problems] == [(
+        "before.csv",
+        "the file is not UTF-8 text (byte 34 is 0xE9, perhaps Windows-1252): save it again "
+        'choosing the file type "CSV UTF-8"',
+    )]
+    path.write_bytes(b"\xef\xbb\xbfFixture;Round\nAlder v Birch;1\nCedar v Damson;x\n")
+    previous = read_previous(path, league)
+    assert previous.rounds == {"Alder v Birch": 1}
+    assert [(p.row, p.column, p.value, p.message) for p in previous.problems] == [
+        (3, "Round", "x", "not a round number")]
