@@ -13,7 +13,7 @@ from leaguegrid.core.dated import DatedSchedule, club_teams, natural_key, team_n
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import breaks_text
 from leaguegrid.io.write import ics
-from leaguegrid.io.write.atomic import ExportError
+from leaguegrid.io.write.atomic import ExportError, WriteError
 from leaguegrid.io.write.calendar_xlsx import CalendarSummary, write_calendar_xlsx
 from leaguegrid.io.write.csv_out import write_schedule_csv
 from leaguegrid.scheduling.breaks import count_breaks
@@ -73,8 +73,13 @@ def export_schedule(league: League, graph: nx.Graph, schedule: Schedule,
         if targets.ics is not None:
             out.written += ics.write_ics_files(targets.ics, dated)
     except (ExportError, DatesError, OSError) as err:
-        raise ExportFailed(str(err), out.written) from err
+        raise ExportFailed(failure_text(err), out.written) from err
     return out
+
+
+def failure_text(err: Exception) -> str:
+    """The one sentence for a write that failed or was refused, starting "could not write"."""
+    return str(err) if isinstance(err, WriteError) else f"could not write: {err}"
 
 
 def ics_file_names(league: League, schedule: Schedule) -> tuple[list[str], str | None]:

@@ -109,7 +109,7 @@ def cmd_plan(args: argparse.Namespace) -> int:
                                          targets, fewest).written
     except export.ExportFailed as err:
         render.print_written(err.written, report)
-        print(f"leaguegrid plan: could not write: {err}", file=sys.stderr)
+        print(f"leaguegrid plan: {err}", file=sys.stderr)
         return WRITE_FAILED
     render.print_written(written, report)
     return OK
@@ -168,7 +168,7 @@ def cmd_new(args: argparse.Namespace) -> int:
     except FileExistsError as err:
         raise UsageError(f"{args.file} exists already; choose another name") from err
     except OSError as err:
-        print(f"leaguegrid new: could not write: {err}", file=sys.stderr)
+        print(f"leaguegrid new: {export.failure_text(err)}", file=sys.stderr)
         return WRITE_FAILED
     print(f"Wrote a blank league workbook to {written}; fill it in, then run "
           f"`leaguegrid check {args.file}`.")

@@ -41,8 +41,14 @@ from leaguegrid.core.dated import (
 )
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import CAUTION, METHODS
-from leaguegrid.io.write.atomic import StrPath, atomic_write, refuse_overwriting_input
+from leaguegrid.io.write.atomic import (
+    StrPath,
+    atomic_write,
+    refuse_overwriting_input,
+    write_error,
+)
 from leaguegrid.io.write.csv_out import FORMULA_START
+from leaguegrid.io.write.xlsx_bytes import workbook_bytes
 
 CALENDAR_SHEET = "Calendar"
 SUMMARY_SHEET = "Summary"
@@ -291,5 +297,10 @@ def write_calendar_xlsx(path: StrPath, dated: DatedSchedule, summary: CalendarSu
     """Write the calendar workbook to `path` atomically; never over the league's own file."""
     refuse_overwriting_input(path, [dated.league.source])
     wb = build_calendar_workbook(dated, summary)
+    wb.properties.modified = dt.datetime.now(tz=dt.timezone.utc).replace(tzinfo=None)
+    try:
+        data = workbook_bytes(wb)  # openpyxl's own temporary files may meet a full disk too
+    except OSError as err:
+        raise write_error(path, err) from err
     with atomic_write(path, "wb") as handle:
-        wb.save(handle)
+        handle.write(data)

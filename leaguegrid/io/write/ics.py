@@ -35,7 +35,13 @@ from leaguegrid.core.dated import DatedFixture, DatedSchedule, club_teams, team_
 from leaguegrid.core.model import Fixture, League, RoundInfo
 from leaguegrid.core.names import name_key
 from leaguegrid.core.wording import CAUTION
-from leaguegrid.io.write.atomic import ExportError, StrPath, atomic_write, refuse_overwriting_input
+from leaguegrid.io.write.atomic import (
+    ExportError,
+    StrPath,
+    atomic_write,
+    refuse_overwriting_input,
+    write_error,
+)
 
 PRODID = "-//LeagueGrid//LeagueGrid calendar export//EN"
 UID_DOMAIN = "leaguegrid.invalid"
@@ -249,7 +255,10 @@ def write_ics_files(folder: StrPath, dated: DatedSchedule) -> list[Path]:
         refuse_overwriting_input(path, [league.source])
         title = league_title if prefix == "league" else f"{league_title}: {name}"
         planned.append((path, calendar_text(title, rows, uids, tz, moment, minutes)))
-    target.mkdir(parents=True, exist_ok=True)
+    try:
+        target.mkdir(parents=True, exist_ok=True)
+    except OSError as err:
+        raise write_error(target, err) from err
     for path, text in planned:
         with atomic_write(path, "wb") as handle:
             handle.write(text.encode("utf-8"))
