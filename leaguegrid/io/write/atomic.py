@@ -175,7 +175,7 @@ def atomic_write(
 
 def write_error(target: StrPath, err: OSError) -> WriteError:
     """The WriteError for `err` met while writing `target`."""
-    failure = WriteError(writewrite_error(str(target), err))
+    failure = WriteError(write_failure(os.fspath(target), err))
     failure.errno = err.errno
     return failure
 

@@ -297,7 +297,7 @@ def write_calendar_xlsx(path: StrPath, dated: DatedSchedule, summary: CalendarSu
     """Write the calendar workbook to `path` atomically; never over the league's own file."""
     refuse_overwriting_input(path, [dated.league.source])
     wb = build_calendar_workbook(dated, summary)
-    wb.properties.modified = dt.datetime.now(tz=dt.timezone.utc).replace(tzinfo=None)
+    wb.properties.modified = dt.datetime.now(tz=dt.UTC).replace(tzinfo=None)
     try:
         data = workbook_bytes(wb)  # openpyxl's own temporary files may meet a full disk too
     except OSError as err:
