@@ -190,6 +190,7 @@ def write_case(name: str, folder: Path, limit: float) -> tuple[float, float, str
         names = [p.name for p in out.glob("*.ics")]
         longest = max((len(n.encode()) for n in names), default=0)
         intact = f"{len(names)} calendars, longest name {longest} bytes"
+        keep = set(names)
     if name == "write-after-kill":
         intact = "new written" if target.read_bytes() != b"OLD" else "old kept"
     out.chmod(0o755)

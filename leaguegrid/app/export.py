@@ -16,6 +16,7 @@ from leaguegrid.io.write import ics
 from leaguegrid.io.write.atomic import ExportError, WriteError
 from leaguegrid.io.write.calendar_xlsx import CalendarSummary, write_calendar_xlsx
 from leaguegrid.io.write.csv_out import write_schedule_csv
+from leaguegrid.io.write.names import sheet_title
 from leaguegrid.scheduling.breaks import count_breaks
 from leaguegrid.scheduling.dates import DatesError, date_schedule
 from leaguegrid.scheduling.optimise import breaks_bound
@@ -96,8 +97,10 @@ def calendar_sheet_names(league: League) -> list[str]:
     """The sheets an Excel calendar holds, in order (team, venue and club sheets by name)."""
     teams = team_names(league)
     venues = sorted({f.venue for f in league.fixtures if f.venue}, key=natural_key)
-    return (["Calendar", "Summary"] + teams + [f"Venue {v}" for v in venues]
-            + [f"Club {c}" for c in club_teams(league, teams)])
+    taken: set[str] = set()
+    return [sheet_title(name, taken) for name in
+            ["Calendar", "Summary"] + teams + [f"Venue {v}" for v in venues]
+            + [f"Club {c}" for c in club_teams(league, teams)]]
 
 
 def _dated(league: League, schedule: Schedule) -> DatedSchedule:
