@@ -4,6 +4,7 @@ and each club. The schedule is dated once and the same dated schedule goes to ev
 from __future__ import annotations
 
 import datetime as dt
+from collections.abc import Sequence
 from dataclasses import dataclass, field
 from pathlib import Path
 
@@ -13,7 +14,7 @@ from leaguegrid.core.dated import DatedSchedule, club_teams, natural_key, team_n
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import breaks_text
 from leaguegrid.io.write import ics
-from leaguegrid.io.write.atomic import ExportError, WriteError
+from leaguegrid.io.write.atomic import ExportError, WriteError, refuse_overwriting_input
 from leaguegrid.io.write.calendar_xlsx import CalendarSummary, write_calendar_xlsx
 from leaguegrid.io.write.csv_out import write_schedule_csv
 from leaguegrid.io.write.names import sheet_title
@@ -58,11 +59,16 @@ def summary_for(league: League, graph: nx.Graph, schedule: Schedule,
 
 def export_schedule(league: League, graph: nx.Graph, schedule: Schedule,
                     targets: ExportTargets, min_rounds: int | None = None,
-                    now: dt.datetime | None = None) -> ExportOutcome:
+                    now: dt.datetime | None = None,
+                    inputs: Sequence[Path | None] = ()) -> ExportOutcome:
     """Write every target asked for, each through a temporary file moved into place; raises
-    ExportFailed naming the problem (files written before it stay written)."""
+    ExportFailed naming the problem (files written before it stay written). No target may be
+    the league's file nor one of `inputs` (a project file, a previous schedule)."""
     out = ExportOutcome()
     try:
+        for target in (targets.xlsx, targets.csv):
+            if target is not None:
+                refuse_overwriting_input(target, inputs)
         dated = date_schedule(league, schedule, now)
         if targets.xlsx is not None:
             write_calendar_xlsx(targets.xlsx, dated,

@@ -14,9 +14,9 @@ from pathlib import Path
 from typing import Any
 
 from leaguegrid import engine
-from leaguegrid.app import schema
-from leaguegrid.app.editing import Edits
-from leaguegrid.core.model import League, Reason, Schedule
+from leaguegrid.app import league, schema
+from leaguegrid.app.editing import Edits, working_league
+from leaguegrid.core.model import League, LoadResult, Reason, Schedule
 from leaguegrid.core.wording import clipped, listed, message, plural
 from leaguegrid.io.write.atomic import atomic_write
 
@@ -165,18 +165,19 @@ class Restored:
     warning: str | None
 
 
-def restore(project: Project, league: League | None, current_sha: str | None) -> Restored:
+def restore(project: Project, fresh: League | None, current_sha: str | None) -> Restored:
     """Keep the project's edits and schedule where their fixtures still exist in the league."""
     notes = list(project.notices)
-    if current_sha is None or league is None:
+    if current_sha is None or fresh is None:
+        why = "found" if current_sha is None else "read (see its problems)"
         notes.append(f"The project's workbook {clipped(project.workbook, 300)} could not be "
-                     "found.")
+                     f"{why}.")
         return Restored(Edits(), None, message(" ".join(notes)))
     if project.sha256 and current_sha != project.sha256:
         notes.append(f"The workbook {clipped(Path(project.workbook).name, 200)} has changed "
                      f"since the project was saved; the saved pins, ties and schedule were "
                      f"kept where their fixtures still exist: check them.")
-    labels = {f.label for f in league.fixtures}
+    labels = {f.label for f in fresh.fixtures}
     saved = project.edits
     dropped = sorted({x for x in saved.pins if x not in labels}
                      | {x for pair in saved.ties + saved.added for x in pair if x not in labels})
@@ -200,3 +201,58 @@ def restore(project: Project, league: League | None, current_sha: str | None) ->
         notes.append(f"Fixtures no longer in the workbook were dropped from pins and ties: "
                      f"{listed(dropped, 10)}.")
     return Restored(edits, schedule, message(" ".join(notes)) if notes else None)
+
+
+def is_project(path: str | Path) -> bool:
+    """True for a project file's name (`.leaguegrid`)."""
+    return Path(path).suffix.casefold() == SUFFIX
+
+
+@dataclass
+class ProjectRead:
+    """A project file as read: the project, or the one sentence saying why it cannot be used."""
+
+    project: Project | None
+    problem: str | None = None
+
+
+def try_read_project(path: str | Path, hooks: engine.Hooks | None = None) -> ProjectRead:
+    """read_project, its refusal returned rather than raised (for the window's worker)."""
+    try:
+        return ProjectRead(read_project(path, hooks))
+    except ProjectError as err:
+        return ProjectRead(None, str(err))
+
+
+@dataclass
+class OpenedProject:
+    """A project file opened on its workbook: the league with the project's pins, ties and
+    clash edits applied and its clash graph; `problem` when the project cannot be used."""
+
+    opened: league.OpenedLeague | None
+    restored: Restored | None = None
+    problem: str | None = None
+    damaged: bool = False  # parts of the project file were damaged and left out
+
+    @property
+    def warning(self) -> str | None:
+        """The 'changed' and 'dropped' notices (and damaged parts left out), or None."""
+        return self.restored.warning if self.restored is not None else None
+
+
+def open_project(path: str | Path, hooks: engine.Hooks | None = None) -> OpenedProject:
+    """Read a project file and its workbook (as the command line works on it)."""
+    found = try_read_project(path, hooks)
+    if found.project is None:
+        return OpenedProject(None, problem=found.problem)
+    data = found.project
+    workbook = data.workbook_path(path)
+    opened = league.open_league(workbook, data.mapping or None, hooks=hooks)
+    sha = league.sha256_of(workbook) if Path(workbook).is_file() else None
+    restored = restore(data, opened.league, sha)
+    if opened.ok and opened.league is not None:
+        working = working_league(opened.league, restored.edits)
+        opened = league.OpenedLeague(
+            opened.path, LoadResult(working, opened.result.problems),
+            league.clash_graph(working, restored.edits.waived), sha)
+    return OpenedProject(opened, restored, damaged=bool(data.notices))

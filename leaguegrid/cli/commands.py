@@ -7,20 +7,35 @@ import datetime as dt
 import json
 import sys
 import time
-from pathlib import Path
 
 from leaguegrid import engine
-from leaguegrid.app import counting, export, league, planning
+from leaguegrid.app import counting, export, league, planning, project
 from leaguegrid.app import whatif as what
 from leaguegrid.app.demos import demo_leagues
 from leaguegrid.cli import render
 from leaguegrid.cli.exits import INPUT_PROBLEMS, OK, PLAN_EXITS, STOPPED, WRITE_FAILED, UsageError
 
 
-def _open(path: Path, rounds: int | None = None) -> league.OpenedLeague | None:
+def _read(args: argparse.Namespace) -> tuple[league.OpenedLeague | None, bool]:
+    """The league a command works on: a workbook or CSV as read, or a project file's workbook
+    with the project's pins, ties and clash edits (its notices on stderr), and whether parts
+    of the project file were damaged; None when the project file cannot be used (said on
+    stderr in one sentence)."""
+    if not project.is_project(args.file):
+        return league.open_league(args.file), False
+    found = project.open_project(args.file)
+    for text in (found.problem, found.warning):
+        if text:
+            print(f"leaguegrid {args.command}: {text}", file=sys.stderr)
+    return found.opened, found.damaged
+
+
+def _open(args: argparse.Namespace, rounds: int | None = None) -> league.OpenedLeague | None:
     """Read a league, print its problems to stderr; None when it cannot be used. `rounds`, when
     given, must be a round count the league can have."""
-    opened = league.open_league(path)
+    opened = _read(args)[0]
+    if opened is None:
+        return None
     render.print_problems(opened.result.problems, sys.stderr)
     if not opened.ok:
         return None
@@ -37,13 +52,15 @@ def _check_rounds(opened: league.OpenedLeague, rounds: int) -> None:
 
 
 def cmd_check(args: argparse.Namespace) -> int:
-    opened = league.open_league(args.file)
+    opened, damaged = _read(args)
+    if opened is None:
+        return INPUT_PROBLEMS
     render.print_check(opened, sys.stdout)
-    return OK if opened.ok else INPUT_PROBLEMS
+    return OK if opened.ok and not damaged else INPUT_PROBLEMS
 
 
 def cmd_count(args: argparse.Namespace) -> int:
-    opened = _open(args.file)
+    opened = _open(args)
     if opened is None:
         return INPUT_PROBLEMS
     rounds = None
@@ -58,7 +75,7 @@ def cmd_count(args: argparse.Namespace) -> int:
 
 
 def cmd_plan(args: argparse.Namespace) -> int:
-    opened = _open(args.file, args.rounds)
+    opened = _open(args, args.rounds)
     if opened is None:
         return INPUT_PROBLEMS
     try:
@@ -106,7 +123,7 @@ def cmd_plan(args: argparse.Namespace) -> int:
     fewest = planning.fewest_rounds(outcome.result, hooks) if args.out is not None else None
     try:
         written = export.export_schedule(opened.league, opened.graph, outcome.schedule,
-                                         targets, fewest).written
+                                         targets, fewest, inputs=[args.file, args.keep]).written
     except export.ExportFailed as err:
         render.print_written(err.written, report)
         print(f"leaguegrid plan: {err}", file=sys.stderr)
@@ -136,7 +153,7 @@ def _round(text: str) -> int | dt.date:
 
 
 def cmd_whatif(args: argparse.Namespace) -> int:
-    opened = _open(args.file, args.rounds)
+    opened = _open(args, args.rounds)
     if opened is None:
         return INPUT_PROBLEMS
     add = tuple(_names("--add", args.add, 2, 2)) if args.add is not None else None

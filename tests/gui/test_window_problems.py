@@ -101,8 +101,9 @@ def test_dropping_a_workbook_on_the_window_opens_it(qtbot, window, tmp_path):
 def test_a_bad_project_is_said_in_a_box_that_does_not_wait(qtbot, window, tmp_path):
     path = tmp_path / "season.leaguegrid"
     path.write_text('["a list, not a project"]', encoding="utf-8")
-    window.open_path(str(path))  # returns with the box open: nothing waits for its OK
+    window.open_path(str(path))  # read in the worker; the box then opens and nothing waits
     message = f"{path} is not a LeagueGrid project file"
+    qtbot.waitUntil(lambda: window.last_error is not None)
     assert window.last_error == message
     assert window.stage_label.text() == message
     qtbot.waitUntil(lambda: isinstance(QApplication.activeModalWidget(), QMessageBox))
