@@ -113,7 +113,7 @@ def _wrong_types(path: Path) -> Path:
 
 PROJECT_CASES: dict[str, Callable[[Path], Path]] = {
     "project-100MB": lambda d: _pins_project(d / "big.leaguegrid", 100),
-    "project-15MB-valid": lambda d: _pins_project(d / "near.leaguegrid", 15),
+    "project-20MB-valid": lambda d: _pins_project(d / "near.leaguegrid", 20.9),
     "project-deep-nesting": lambda d: _deep(d / "deep.leaguegrid"),
     "project-300k-bad-pins": lambda d: _pins_project(d / "bad.leaguegrid", 6, '"soon"'),
     "project-wrong-types": lambda d: _wrong_types(d / "types.leaguegrid"),

@@ -17,7 +17,7 @@ from leaguegrid import engine
 from leaguegrid.app import league, schema
 from leaguegrid.app.editing import Edits, working_league
 from leaguegrid.core.model import League, LoadResult, Reason, Schedule
-from leaguegrid.core.wording import clipped, listed, message, plural
+from leaguegrid.core.wording import clipped, counted, listed, message
 from leaguegrid.io.write.atomic import atomic_write
 
 FORMAT = schema.FORMAT
@@ -110,7 +110,7 @@ def read_project(path: str | Path, hooks: engine.Hooks | None = None) -> Project
     if found.problems:
         notices.append(message(
             f"The project file {Path(path).name} is damaged in "
-            f"{plural(len(found.problems), 'place')}; those parts were left out: "
+            f"{counted(len(found.problems), 'place')}; those parts were left out: "
             f"{listed(found.problems)}."
             + (" The saved schedule was not restored." if found.schedule_dropped else "")))
     return Project(
@@ -125,9 +125,10 @@ def load_json(path: str | Path) -> Any:
     schema.MAX_DEPTH deep (checked before parsing), UTF-8; else ProjectError."""
     name = Path(path)
     try:
+        if not name.is_file():  # a folder, a pipe or a device is never opened
+            raise ProjectError(f"{path} is not a file" if name.exists() else
+                               f"{path} could not be read: it does not exist")
         with open(name, "rb") as handle:
-            if not os.path.isfile(name):
-                raise ProjectError(f"{path} is not a file")
             size = os.fstat(handle.fileno()).st_size
             data = b"" if size > MAX_PROJECT_BYTES else handle.read(MAX_PROJECT_BYTES + 1)
     except OSError as err:
@@ -140,8 +141,8 @@ def load_json(path: str | Path) -> Any:
     try:
         text = data.decode("utf-8-sig")
     except UnicodeDecodeError as err:
-        raise ProjectError(f"{path} is damaged: byte {err.start:,} is not UTF-8 text, so it "
-                           "is not a LeagueGrid project") from err
+        raise ProjectError(f"{path} is damaged: the byte at offset {err.start:,} is not UTF-8 "
+                           "text, so it is not a LeagueGrid project") from err
     if schema.too_deep(text):
         raise ProjectError(f"{path} is damaged: its data is nested more than "
                            f"{schema.MAX_DEPTH} levels deep (a project needs 4), so it is not "
@@ -149,10 +150,15 @@ def load_json(path: str | Path) -> Any:
     try:
         return json.loads(text, parse_constant=schema.constant)
     except json.JSONDecodeError as err:
-        raise ProjectError(f"{path} is damaged: {err.msg.lower()} at line {err.lineno:,}, "
-                           f"column {err.colno:,}") from err
-    except (ValueError, RecursionError) as err:  # a number of thousands of digits, NaN
-        raise ProjectError(message(f"{path} is damaged: {str(err).lower()}")) from err
+        raise ProjectError(f"{path} is damaged: {err.msg.lower()} (line {err.lineno:,}, "
+                           f"column {err.colno:,})") from err
+    except schema.NotJson as err:
+        raise ProjectError(f"{path} is damaged: {err}") from err
+    except ValueError as err:  # Python converts no number of more than 4,300 digits
+        raise ProjectError(f"{path} is damaged: it holds a number of thousands of digits, "
+                           "which no part of a project can be") from err
+    except RecursionError as err:  # too_deep() said no, so this is not expected
+        raise ProjectError(f"{path} is damaged: its data is nested too deeply") from err
 
 
 @dataclass

@@ -16,7 +16,7 @@ from dataclasses import dataclass, field
 from typing import Any
 
 from leaguegrid.core.names import name_key
-from leaguegrid.core.wording import clipped, grouped
+from leaguegrid.core.wording import clipped, counted, grouped
 from leaguegrid.io.read.fixtures_sheet import FIXTURES_COLUMNS
 
 FORMAT = "leaguegrid-project"
@@ -35,9 +35,13 @@ _INNERMOST = re.compile(r"\[\]|\{\}")
 _SHA256 = re.compile(r"[0-9a-f]{64}\Z")
 
 
+class NotJson(ValueError):
+    """NaN or Infinity, which Python's json reads but JSON does not allow."""
+
+
 def constant(text: str) -> None:
-    """json's parse_constant: NaN and Infinity are not JSON."""
-    raise ValueError(f"{text} is not a number JSON allows")
+    """json's parse_constant: NaN and Infinity are refused."""
+    raise NotJson(f"it holds {text}, which is not a number JSON allows")
 
 
 def too_deep(text: str) -> bool:
@@ -61,11 +65,11 @@ def shown(value: Any) -> str:
         return f"a number of {grouped(len(str(abs(value))))} digits"
     if isinstance(value, str):
         return repr(clipped(value, 40)) if len(value) <= MAX_TEXT else \
-            f"a text of {grouped(len(value))} characters"
+            f"a text of {counted(len(value), 'character')}"
     if isinstance(value, list):
-        return f"a list of {grouped(len(value))} items"
+        return f"a list of {counted(len(value), 'item')}"
     if isinstance(value, dict):
-        return f"an object of {grouped(len(value))} entries"
+        return f"an object of {counted(len(value), 'entry', 'entries')}"
     return clipped(repr(value), 40)
 
 

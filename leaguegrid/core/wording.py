@@ -35,6 +35,11 @@ def plural(n: int, one: str, many: str | None = None) -> str:
     return f"{n} {one if n == 1 else (many or one + 's')}"
 
 
+def counted(n: int, one: str, many: str | None = None) -> str:
+    """plural() with the digits grouped: '1 item', '300,000 items'."""
+    return f"{grouped(n)} {one if n == 1 else (many or one + 's')}"
+
+
 def is_estimate(value: Any) -> bool:
     """True for an engine Estimate (anything with low and high bounds that is not an int)."""
     return not isinstance(value, int) and hasattr(value, "low") and hasattr(value, "high")
