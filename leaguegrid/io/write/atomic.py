@@ -31,7 +31,6 @@ MAX_NAME_BYTES = 255  # the longest file name (UTF-8 bytes) the common file syst
 TEMP_AFFIX_BYTES = len(".") + len(".abcdefgh.tmp")  # what a temporary name adds to a name
 STALE_SECONDS = 15 * 60
 _OUR_TEMPORARY = re.compile(r"\A\..+\.[a-z0-9_]{8}\.tmp\Z", re.DOTALL)
-_tidied: dict[str, float] = {}  # folder -> when this process last removed stale files there
 
 
 class ExportError(Exception):
@@ -74,15 +73,6 @@ def remove_stale_temporaries(folder: Path, now: float | None = None) -> list[Pat
     return removed
 
 
-def _tidy(folder: Path) -> None:
-    """Remove stale temporary files once a minute at most per folder (exports write many)."""
-    key = os.path.normcase(os.path.abspath(folder))
-    now = time.time()
-    if now - _tidied.get(key, 0.0) >= 60:
-        _tidied[key] = now
-        remove_stale_temporaries(folder, now)
-
-
 def _default_file_mode() -> int:
     """The permissions a plain `open(path, "w")` would give a new file (0666 minus umask)."""
     mask = os.umask(0)
@@ -117,6 +107,7 @@ def atomic_write(
     encoding: str | None = "utf-8",
     newline: str | None = None,
     replace: bool = True,
+    tidy: bool = True,
 ) -> Iterator[IO[Any]]:
     """Yield a file object for a temporary file beside `path`; on success it replaces `path`.
 
@@ -126,6 +117,7 @@ def atomic_write(
     or here) becomes a WriteError saying "could not write <path>: <why>". With `replace=False`
     an existing `path` is never touched: the finished file is linked into place, which fails
     with FileExistsError when the name is taken, even by a file that appeared meanwhile.
+    With `tidy` (the default) stale temporary files of ours in the folder are removed first.
     """
     if mode not in ("w", "wb"):
         raise ValueError(f"atomic_write mode must be 'w' or 'wb', not {mode!r}")
@@ -134,7 +126,8 @@ def atomic_write(
     try:
         if target.is_dir():
             raise IsADirectoryError(errno.EISDIR, "a folder is in the way", str(target))
-        _tidy(folder)
+        if tidy:
+            remove_stale_temporaries(folder)
         prefix = "." + fit_bytes(target.name, MAX_NAME_BYTES - TEMP_AFFIX_BYTES) + "."
         fd, tmp_name = tempfile.mkstemp(dir=folder, prefix=prefix, suffix=".tmp")
     except OSError as err:

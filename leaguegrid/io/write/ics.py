@@ -253,7 +253,7 @@ def write_ics_files(folder: StrPath, dated: DatedSchedule) -> list[Path]:
         target.mkdir(parents=True, exist_ok=True)
     except OSError as err:
         raise write_error(target, err) from err
-    for path, text in planned:
-        with atomic_write(path, "wb") as handle:
+    for i, (path, text) in enumerate(planned):
+        with atomic_write(path, "wb", tidy=i == 0) as handle:  # one folder: tidied once
             handle.write(text.encode("utf-8"))
     return [path for path, _ in planned]
