@@ -18,13 +18,13 @@ from typing import Any
 from leaguegrid.core.names import name_key
 from leaguegrid.core.wording import clipped, counted, grouped
 from leaguegrid.io.read.fixtures_sheet import FIXTURES_COLUMNS
+from leaguegrid.io.read.rounds_sheet import MAX_ROUND  # the workbook's own limit
 
 FORMAT = "leaguegrid-project"
 VERSION = 1
 MAX_DEPTH = 16  # the format needs 4 (root, schedule, assignment, value)
 MAX_TEXT = 1000  # characters in a fixture label, a name or a column name
 MAX_PATH = 4096  # characters in a path
-MAX_ROUND = 100_000
 MAX_DIGITS = 40  # a longer number is never a round, a row or a seed
 REASON_KINDS = ("team", "venue", "shared", "clash", "split")
 KNOWN_KEYS = ("format", "version", "workbook", "mapping", "pins", "ties", "waived",
@@ -104,9 +104,11 @@ def check_project(raw: Any) -> Checked:
         out.fatal = "is not a LeagueGrid project file"
         return out
     version = raw.get("version")
-    if not _is_int(version, VERSION, VERSION):
-        out.fatal = (f"is a project of version {shown(version)}; this LeagueGrid reads "
-                     f"version {VERSION}")
+    if not _is_int(version, 1, 10 ** 9):
+        out.fatal = f"is damaged: version is {shown(version)}, not a version number"
+        return out
+    if version != VERSION:
+        out.fatal = f"is a project of version {version}; this LeagueGrid reads version {VERSION}"
         return out
     book = raw.get("workbook")
     path = book.get("path") if isinstance(book, dict) else None

@@ -123,7 +123,9 @@ def test_a_damaged_schedule_is_left_out_whole_and_huge_values_are_named(cli, tmp
 @pytest.mark.parametrize(("text", "sentence"), [
     ('["a list"]', "is not a LeagueGrid project file"),
     ('{"format": "leaguegrid-project", "version": "1"}',
-     "is a project of version '1'; this LeagueGrid reads version 1"),
+     "is damaged: version is '1', not a version number"),
+    ('{"format": "leaguegrid-project", "version": 2}',
+     "is a project of version 2; this LeagueGrid reads version 1"),
     ('{"format": "leaguegrid-project", "version": 1, "workbook": {"path": 5}}',
      "is damaged: workbook.path is 5, not the workbook's file path, so the project does not "
      "say which workbook it belongs to"),
