@@ -68,20 +68,31 @@ with atomic_write(sys.argv[1], "wb") as handle:
 """
 
 
+# A child of a large process starts with that process's peak as its own ru_maxrss (Linux keeps
+# the high-water mark across fork and exec), so each case is started by a small launcher.
+LAUNCH = "import subprocess, sys; sys.exit(subprocess.run(sys.argv[1:]).returncode)"
+PEAK = ("import atexit, resource, sys\n"
+        "atexit.register(lambda: print('peak-kib', resource.getrusage(resource.RUSAGE_SELF)"
+        ".ru_maxrss, file=sys.__stderr__))\n")
+
+
 def run_child(code: str, args: list[str], limit: float) -> tuple[float, float, int, str]:
-    """(seconds, peak MiB, exit code, stdout + stderr) of `python -c code args`."""
+    """(seconds, peak MiB, exit code, stdout + stderr) of `python -c code args`; the peak is
+    the child's own ru_maxrss as it exits (0 when it was killed)."""
     env = dict(os.environ, PYTHONPATH=os.environ.get("PYTHONPATH", str(ROOT)))
     started = time.perf_counter()
-    child = subprocess.Popen([sys.executable, "-c", code, *args], env=env, text=True,
+    child = subprocess.Popen([sys.executable, "-c", LAUNCH, sys.executable, "-c", PEAK + code,
+                              *args], env=env, text=True,
                              stdout=subprocess.PIPE, stderr=subprocess.STDOUT)
     timer = threading.Timer(limit, child.kill)
     timer.start()
     out = child.stdout.read() if child.stdout else ""
-    _pid, status, usage = os.wait4(child.pid, 0)
+    code = child.wait()
     timer.cancel()
-    child.returncode = os.waitstatus_to_exitcode(status)
     seconds = time.perf_counter() - started
-    return seconds, usage.ru_maxrss / 1024, child.returncode, out
+    kept = [line for line in out.splitlines() if not line.startswith("peak-kib")]
+    peaks = [int(line.split()[1]) for line in out.splitlines() if line.startswith("peak-kib")]
+    return seconds, (peaks[-1] / 1024 if peaks else 0.0), code, "\n".join(kept)
 
 
 def _pins_project(path: Path, megabytes: float, value: str = "1") -> Path:

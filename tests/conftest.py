@@ -48,6 +48,9 @@ def round_robin(tmp_path: Path):
 
 
 ROOT = Path(__file__).resolve().parents[1]
+# A child of a large process starts with that process's peak as its own ru_maxrss (Linux keeps
+# the high-water mark across fork and exec), so the child is started by a small launcher.
+_LAUNCH = "import subprocess, sys; sys.exit(subprocess.run(sys.argv[1:]).returncode)"
 _PEAK = ("import atexit, resource, sys\n"
          "atexit.register(lambda: print('peak-kib', resource.getrusage(resource.RUSAGE_SELF)"
          ".ru_maxrss // (1024 if sys.platform == 'darwin' else 1), file=sys.__stderr__))\n")
@@ -64,7 +67,8 @@ def child():
     def run(code: str, *args: str, timeout: float = 120) -> tuple[int, str, str, float]:
         env = dict(os.environ, PYTHONPATH=os.pathsep.join(
             [str(ROOT), *filter(None, [os.environ.get("PYTHONPATH")])]))
-        done = subprocess.run([sys.executable, "-c", _PEAK + code, *args], env=env,
+        done = subprocess.run([sys.executable, "-c", _LAUNCH, sys.executable, "-c", _PEAK + code,
+                               *args], env=env,
                               capture_output=True, text=True, timeout=timeout)
         lines = done.stderr.splitlines(keepends=True)
         if not lines or not lines[-1].startswith("peak-kib"):
