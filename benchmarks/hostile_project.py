@@ -28,18 +28,20 @@ SMALL = ROOT / "demo_leagues" / "small.xlsx"
 HEAD = '{"format": "leaguegrid-project", "version": 1, "workbook": {"path": "small.xlsx"}'
 
 READ_PROJECT = """
-import sys
+import sys, time
 from leaguegrid.app import project
+started = time.perf_counter()
 try:
     data = project.read_project(sys.argv[1])
 except project.ProjectError as err:
     text = str(err)
-    print(f"refused ({len(text)} chars): {text[:70]}")
+    answer = f"refused ({len(text)} chars): {text[:70]}"
 except BaseException as err:
-    print(f"unhandled {type(err).__name__}")
+    answer = f"unhandled {type(err).__name__}"
 else:
     notes = getattr(data, "notices", [])
-    print(f"opened, {len(data.edits.pins)} pins, {len(notes)} notices")
+    answer = f"opened, {len(data.edits.pins)} pins, {len(notes)} notices"
+print(f"read {time.perf_counter() - started:.2f} s; {answer}")
 """
 
 RUN_CLI = """

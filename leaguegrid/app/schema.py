@@ -186,12 +186,13 @@ def _pins(value: Any, bad: list[str]) -> dict[str, int | None]:
         return {}
     out: dict[str, int | None] = {}
     for label, pin in value.items():
-        if not _is_text(label):
-            bad.append(f"pins has a fixture label of {shown(label)}")
-        elif pin is not None and not _is_int(pin, 1, MAX_ROUND):
-            bad.append(f"pins[{_label(label)}] is {shown(pin)}, not a round number")
-        else:
+        if (pin is None or type(pin) is int and 1 <= pin <= MAX_ROUND) and \
+                0 < len(label) <= MAX_TEXT and "\x00" not in label:  # the usual case, first
             out[label] = pin
+        elif not _is_text(label):
+            bad.append(f"pins has a fixture label of {shown(label)}")
+        else:
+            bad.append(f"pins[{_label(label)}] is {shown(pin)}, not a round number")
     return out
 
 
