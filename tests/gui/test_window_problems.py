@@ -113,6 +113,29 @@ def test_a_bad_project_is_said_in_a_box_that_does_not_wait(qtbot, window, tmp_pa
     qtbot.waitUntil(lambda: QApplication.activeModalWidget() is None)
 
 
+def test_a_damaged_project_is_read_in_the_worker_and_its_sound_parts_open(qtbot, window,
+                                                                           tmp_path, demo):
+    import json
+    import shutil
+
+    shutil.copy(demo / "small.xlsx", tmp_path / "small.xlsx")
+    path = tmp_path / "season.leaguegrid"
+    path.write_text(json.dumps({
+        "format": "leaguegrid-project", "version": 1,
+        "workbook": {"path": str(tmp_path / "small.xlsx"), "relative": "small.xlsx"},
+        "pins": {"Herons v Wrens": "soon", "Otters v Wrens": 3}, "ties": 7}), encoding="utf-8")
+    window.open_path(str(path))
+    assert window.runner.busy and window.last_error is None  # read off the window's thread
+    qtbot.waitUntil(lambda: window.doc.project_path == str(path), timeout=30_000)
+    assert window.doc.edits.pins == {"Otters v Wrens": 3}
+    assert window.last_error == (
+        "The project file season.leaguegrid is damaged in 2 places; those parts were left out: "
+        "pins[\"Herons v Wrens\"] is 'soon', not a round number; ties is 7, not a list.")
+    qtbot.waitUntil(lambda: isinstance(QApplication.activeModalWidget(), QMessageBox))
+    QApplication.activeModalWidget().accept()
+    qtbot.waitUntil(lambda: QApplication.activeModalWidget() is None)
+
+
 def test_recent_files_are_absolute_once_each_and_only_those_that_exist(window, tmp_path,
                                                                       monkeypatch, settings):
     kept = tmp_path / "league.xlsx"
