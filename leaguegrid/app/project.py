@@ -227,7 +227,7 @@ def try_read_project(path: str | Path, hooks: engine.Hooks | None = None) -> Pro
     try:
         return ProjectRead(read_project(path, hooks))
     except ProjectError as err:
-        return ProjectRead(None, str(err))
+        return ProjectRead(None, message(str(err)))
 
 
 @dataclass
