@@ -45,3 +45,34 @@ def round_robin(tmp_path: Path):
         return write_workbook(tmp_path / f"rr{teams}.xlsx", {"Teams": rows})
 
     return make
+
+
+ROOT = Path(__file__).resolve().parents[1]
+# A child of a large process starts with that process's peak as its own ru_maxrss (Linux keeps
+# the high-water mark across fork and exec), so the child is started by a small launcher.
+_LAUNCH = "import subprocess, sys; sys.exit(subprocess.run(sys.argv[1:]).returncode)"
+_PEAK = ("import atexit, resource, sys\n"
+         "atexit.register(lambda: print('peak-kib', resource.getrusage(resource.RUSAGE_SELF)"
+         ".ru_maxrss // (1024 if sys.platform == 'darwin' else 1), file=sys.__stderr__))\n")
+
+
+@pytest.fixture
+def child():
+    """Run Python code in a fresh process (POSIX): child(code, *args) -> (exit code, stdout,
+    stderr, peak resident MiB: the child's own ru_maxrss, printed as it exits)."""
+    import os
+    import subprocess
+    import sys
+
+    def run(code: str, *args: str, timeout: float = 120) -> tuple[int, str, str, float]:
+        env = dict(os.environ, PYTHONPATH=os.pathsep.join(
+            [str(ROOT), *filter(None, [os.environ.get("PYTHONPATH")])]))
+        done = subprocess.run([sys.executable, "-c", _LAUNCH, sys.executable, "-c", _PEAK + code,
+                               *args], env=env,
+                              capture_output=True, text=True, timeout=timeout)
+        lines = done.stderr.splitlines(keepends=True)
+        if not lines or not lines[-1].startswith("peak-kib"):
+            return done.returncode, done.stdout, done.stderr, 0.0
+        return done.returncode, done.stdout, "".join(lines[:-1]), int(lines[-1].split()[1]) / 1024
+
+    return run

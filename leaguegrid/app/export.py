@@ -4,6 +4,7 @@ and each club. The schedule is dated once and the same dated schedule goes to ev
 from __future__ import annotations
 
 import datetime as dt
+from collections.abc import Sequence
 from dataclasses import dataclass, field
 from pathlib import Path
 
@@ -13,9 +14,10 @@ from leaguegrid.core.dated import DatedSchedule, club_teams, team_names, venue_n
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import breaks_text
 from leaguegrid.io.write import ics
-from leaguegrid.io.write.atomic import ExportError
+from leaguegrid.io.write.atomic import ExportError, WriteError, refuse_overwriting_input
 from leaguegrid.io.write.calendar_xlsx import CalendarSummary, write_calendar_xlsx
 from leaguegrid.io.write.csv_out import write_schedule_csv
+from leaguegrid.io.write.names import sheet_title
 from leaguegrid.scheduling.breaks import count_breaks
 from leaguegrid.scheduling.dates import DatesError, date_schedule
 from leaguegrid.scheduling.optimise import breaks_bound
@@ -57,11 +59,16 @@ def summary_for(league: League, graph: nx.Graph, schedule: Schedule,
 
 def export_schedule(league: League, graph: nx.Graph, schedule: Schedule,
                     targets: ExportTargets, min_rounds: int | None = None,
-                    now: dt.datetime | None = None) -> ExportOutcome:
+                    now: dt.datetime | None = None,
+                    inputs: Sequence[Path | None] = ()) -> ExportOutcome:
     """Write every target asked for, each through a temporary file moved into place; raises
-    ExportFailed naming the problem (files written before it stay written)."""
+    ExportFailed naming the problem (files written before it stay written). No target may be
+    the league's file nor one of `inputs` (a project file, a previous schedule)."""
     out = ExportOutcome()
     try:
+        for target in (targets.xlsx, targets.csv):
+            if target is not None:
+                refuse_overwriting_input(target, inputs)
         dated = date_schedule(league, schedule, now)
         if targets.xlsx is not None:
             write_calendar_xlsx(targets.xlsx, dated,
@@ -73,8 +80,13 @@ def export_schedule(league: League, graph: nx.Graph, schedule: Schedule,
         if targets.ics is not None:
             out.written += ics.write_ics_files(targets.ics, dated)
     except (ExportError, DatesError, OSError) as err:
-        raise ExportFailed(str(err), out.written) from err
+        raise ExportFailed(failure_text(err), out.written) from err
     return out
+
+
+def failure_text(err: Exception) -> str:
+    """The one sentence for a write that failed or was refused, starting "could not write"."""
+    return str(err) if isinstance(err, WriteError) else f"could not write: {err}"
 
 
 def ics_file_names(league: League, schedule: Schedule) -> tuple[list[str], str | None]:
@@ -91,8 +103,10 @@ def calendar_sheet_names(league: League) -> list[str]:
     """The sheets an Excel calendar holds, in order (team, venue and club sheets by name)."""
     teams = team_names(league)
     venues = venue_names(league.fixtures)
-    return (["Calendar", "Summary"] + teams + [f"Venue {v}" for v in venues]
-            + [f"Club {c}" for c in club_teams(league, teams)])
+    taken: set[str] = set()
+    return [sheet_title(name, taken) for name in
+            ["Calendar", "Summary"] + teams + [f"Venue {v}" for v in venues]
+            + [f"Club {c}" for c in club_teams(league, teams)]]
 
 
 def _dated(league: League, schedule: Schedule) -> DatedSchedule:

@@ -10,9 +10,7 @@ from typing import Any
 import networkx as nx
 
 from leaguegrid import engine
-from leaguegrid.app import project
 from leaguegrid.app.defaults import PREVIEW_ROWS
-from leaguegrid.app.editing import working_league
 from leaguegrid.app.matching import ColumnsError, misses_text
 from leaguegrid.clashes.graph import build_clash_graph, without_reasons
 from leaguegrid.core.model import League, LoadResult, Reason
@@ -87,28 +85,6 @@ def _typed_misses(path: Path, result: LoadResult) -> str:
     said = "; ".join(parts)
     return said + ("" if said.endswith("?") else ".") + (
         f" Its Fixtures columns: {', '.join(result.headers)}.")
-
-
-def open_source(path: str | Path, columns: dict[str, str] | None = None) -> OpenedLeague:
-    """What a command reads: a workbook or CSV, or a project file (the workbook it names with
-    its matching, pins, ties, waived and added clashes). `columns`, typed by the coordinator,
-    replaces the project's matching and must fit the file (ColumnsError otherwise); the
-    project's own matching is dropped with a notice when it no longer fits."""
-    path = Path(path)
-    if path.suffix.lower() != project.SUFFIX:
-        return open_league(path, columns, typed=columns is not None)
-    data = project.read_project(path)
-    workbook = Path(data.workbook_path(path))
-    opened = open_league(workbook, columns if columns is not None else data.mapping,
-                         typed=columns is not None)
-    if not opened.ok or opened.league is None:
-        return opened
-    restored = project.restore(data, opened.league, sha256_of(workbook))
-    league = working_league(opened.league, restored.edits)
-    notes = [n for n in (opened.notice, restored.warning) if n]
-    return OpenedLeague(workbook, LoadResult(league, opened.result.problems),
-                        clash_graph(league, restored.edits.waived), columns=opened.columns,
-                        notice=" ".join(notes) or None)
 
 
 def clash_graph(league: League, waived: list[Reason] | None = None) -> nx.Graph:

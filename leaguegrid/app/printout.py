@@ -32,7 +32,7 @@ from leaguegrid.core.dated import (
     venue_names,
 )
 from leaguegrid.core.model import League, RoundInfo, Schedule
-from leaguegrid.core.wording import CAUTION, plural, season_totals, when_text
+from leaguegrid.core.wording import CAUTION, plural, season_totals, when_text, write_failure
 from leaguegrid.io.write.atomic import ExportError, atomic_write, refuse_overwriting_input
 from leaguegrid.scheduling.breaks import team_byes
 from leaguegrid.scheduling.dates import dated_fixtures, round_dates
@@ -178,5 +178,5 @@ def write_pdf(path: str | Path, data: bytes, league: League) -> Path:
     except ExportError as err:
         raise ExportFailed(str(err), []) from err
     except OSError as err:
-        raise ExportFailed(f"cannot write {path}: {err.strerror or err}", []) from err
+        raise ExportFailed(write_failure(str(path), err), []) from err
     return Path(path)

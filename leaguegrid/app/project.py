@@ -13,17 +13,23 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
-from leaguegrid.app.editing import Edits
-from leaguegrid.core.model import League, Reason, Schedule
+from leaguegrid import engine
+from leaguegrid.app import league, schema
+from leaguegrid.app.editing import Edits, working_league
+from leaguegrid.core.model import League, LoadResult, Reason, Schedule
+from leaguegrid.core.wording import clipped, counted, listed, message
 from leaguegrid.io.write.atomic import atomic_write
 
-FORMAT = "leaguegrid-project"
-VERSION = 1
+FORMAT = schema.FORMAT
+VERSION = schema.VERSION
 SUFFIX = ".leaguegrid"
 
 
+MAX_PROJECT_BYTES = 20 * 1024 * 1024  # a season of 50,000 fixtures pinned and drawn: ~6 MB
+
+
 class ProjectError(Exception):
-    """A project file that cannot be read."""
+    """A project file that cannot be read (one sentence)."""
 
 
 @dataclass
@@ -37,7 +43,8 @@ class Project:
     schedule: Schedule | None = None
     rounds: int | None = None
     workbook_relative: str | None = None
-    saved_schedule: dict[str, Any] | None = None  # as read, before it is checked
+    saved_schedule: dict[str, Any] | None = None  # as read and checked, before it is laid on
+    notices: list[str] = field(default_factory=list)  # what was damaged and left out
 
     def workbook_path(self, project_path: str | Path) -> str:
         """The workbook beside the project when it is there, else the absolute path saved."""
@@ -83,54 +90,75 @@ def save_project(path: str | Path, project: Project) -> None:
         handle.write(text + "\n")
 
 
-def _pairs(value: Any, name: str) -> list[tuple[str, str]]:
-    if not isinstance(value, list) or not all(
-            isinstance(p, list) and len(p) == 2 and all(isinstance(x, str) for x in p)
-            for p in value):
-        raise ProjectError(f"the project's {name} must be a list of fixture pairs")
-    return [(p[0], p[1]) for p in value]
-
-
-def read_project(path: str | Path) -> Project:
-    """Read and check a project file; ProjectError says what is wrong with it."""
-    try:
-        with open(path, encoding="utf-8") as handle:
-            raw = json.load(handle)
-    except (OSError, UnicodeDecodeError, json.JSONDecodeError) as err:
-        raise ProjectError(f"{path} is not a readable LeagueGrid project: {err}") from err
-    if not isinstance(raw, dict) or raw.get("format") != FORMAT:
-        raise ProjectError(f"{path} is not a LeagueGrid project file")
-    if raw.get("version") != VERSION:
-        raise ProjectError(f"{path} is a project of version {raw.get('version')}; "
-                           f"this LeagueGrid reads version {VERSION}")
-    book = raw.get("workbook") or {}
-    if not isinstance(book, dict) or not isinstance(book.get("path"), str):
-        raise ProjectError(f"{path} does not name its workbook")
-    pins = raw.get("pins") or {}
-    if not isinstance(pins, dict) or not all(
-            isinstance(k, str) and (v is None or isinstance(v, int)) for k, v in pins.items()):
-        raise ProjectError("the project's pins must map fixture labels to round numbers")
-    waived = []
-    for item in raw.get("waived") or []:
-        try:
-            waived.append(Reason(kind=item["kind"], key=item["key"], row=item.get("row")))
-        except (TypeError, KeyError) as err:
-            raise ProjectError(f"the project's waived clashes are malformed: {err}") from err
-    schedule = raw.get("schedule")
-    if schedule is not None and not (isinstance(schedule, dict)
-                                     and isinstance(schedule.get("assignment"), dict)
-                                     and isinstance(schedule.get("rounds"), int)):
-        raise ProjectError("the project's schedule is malformed")
-    mapping = raw.get("mapping") or {}
-    edits = Edits(pins=pins, ties=_pairs(raw.get("ties") or [], "ties"), waived=waived,
-                  added=_pairs(raw.get("added_clashes") or [], "added clashes"))
+def read_project(path: str | Path, hooks: engine.Hooks | None = None) -> Project:
+    """Read a project file as untrusted input: size and nesting checked before parsing, every
+    field checked against the format (schema.py); ProjectError (one sentence) when it cannot
+    be used at all, else the valid parts, with `notices` naming what was dropped."""
+    if hooks is not None:
+        hooks.report(0.05, f"Reading {Path(path).name}")
+    raw = load_json(path)
+    found = schema.check_project(raw)
+    if found.fatal is not None:
+        raise ProjectError(message(f"{path} {found.fatal}"))
+    fields = found.fields
+    book = fields["workbook"]
+    edits = Edits(pins=fields["pins"], ties=fields["ties"],
+                  waived=[Reason(kind=w["kind"], key=w["key"], row=w["row"])
+                          for w in fields["waived"]],
+                  added=fields["added_clashes"])
+    notices = []
+    if found.problems:
+        notices.append(message(
+            f"The project file {Path(path).name} is damaged in "
+            f"{counted(len(found.problems), 'place')}; those parts were left out: "
+            f"{listed(found.problems)}."
+            + (" The saved schedule was not restored." if found.schedule_dropped else "")))
     return Project(
-        workbook=book["path"], workbook_relative=book.get("relative"),
-        sha256=book.get("sha256"),
-        mapping={str(k): str(v) for k, v in mapping.items()} if isinstance(mapping, dict) else {},
-        edits=edits, saved_schedule=schedule,
-        rounds=raw.get("rounds") if isinstance(raw.get("rounds"), int) else None,
+        workbook=book["path"], workbook_relative=book["relative"], sha256=book["sha256"],
+        mapping=fields["mapping"], edits=edits, saved_schedule=fields["schedule"],
+        rounds=fields["rounds"], notices=notices,
     )
+
+
+def load_json(path: str | Path) -> Any:
+    """The JSON value of a project file: at most MAX_PROJECT_BYTES, nested at most
+    schema.MAX_DEPTH deep (checked before parsing), UTF-8; else ProjectError."""
+    name = Path(path)
+    try:
+        if not name.is_file():  # a folder, a pipe or a device is never opened
+            raise ProjectError(f"{path} is not a file" if name.exists() else
+                               f"{path} could not be read: it does not exist")
+        with open(name, "rb") as handle:
+            size = os.fstat(handle.fileno()).st_size
+            data = b"" if size > MAX_PROJECT_BYTES else handle.read(MAX_PROJECT_BYTES + 1)
+    except OSError as err:
+        reason = (err.strerror or str(err)).lower()
+        raise ProjectError(f"{path} could not be read: {reason}") from err
+    if size > MAX_PROJECT_BYTES or len(data) > MAX_PROJECT_BYTES:
+        raise ProjectError(
+            f"{path} is too large for a LeagueGrid project ({max(size, len(data)):,} bytes; "
+            f"at most {MAX_PROJECT_BYTES:,})")
+    try:
+        text = data.decode("utf-8-sig")
+    except UnicodeDecodeError as err:
+        raise ProjectError(f"{path} is damaged: the byte at offset {err.start:,} is not UTF-8 "
+                           "text, so it is not a LeagueGrid project") from err
+    if schema.too_deep(text):
+        raise ProjectError(f"{path} is damaged: its data is nested more than "
+                           f"{schema.MAX_DEPTH} levels deep (a project needs 4), so it is not "
+                           "read")
+    try:
+        return json.loads(text, parse_constant=schema.constant)
+    except json.JSONDecodeError as err:
+        raise ProjectError(f"{path} is damaged: {err.msg.lower()} (line {err.lineno:,}, "
+                           f"column {err.colno:,})") from err
+    except schema.NotJson as err:
+        raise ProjectError(f"{path} is damaged: {err}") from err
+    except ValueError as err:  # Python converts no number of more than 4,300 digits
+        raise ProjectError(f"{path} is damaged: it holds a number of thousands of digits, "
+                           "which no part of a project can be") from err
+    except RecursionError as err:  # too_deep() said no, so this is not expected
+        raise ProjectError(f"{path} is damaged: its data is nested too deeply") from err
 
 
 @dataclass
@@ -143,17 +171,19 @@ class Restored:
     warning: str | None
 
 
-def restore(project: Project, league: League | None, current_sha: str | None) -> Restored:
+def restore(project: Project, fresh: League | None, current_sha: str | None) -> Restored:
     """Keep the project's edits and schedule where their fixtures still exist in the league."""
-    if current_sha is None or league is None:
-        return Restored(Edits(), None,
-                        f"The project's workbook {project.workbook} could not be found.")
-    notes = []
+    notes = list(project.notices)
+    if current_sha is None or fresh is None:
+        why = "found" if current_sha is None else "read (see its problems)"
+        notes.append(f"The project's workbook {clipped(project.workbook, 300)} could not be "
+                     f"{why}.")
+        return Restored(Edits(), None, message(" ".join(notes)))
     if project.sha256 and current_sha != project.sha256:
-        notes.append(f"The workbook {Path(project.workbook).name} has changed since the project "
-                     f"was saved; the saved pins, ties and schedule were kept where their "
-                     f"fixtures still exist: check them.")
-    labels = {f.label for f in league.fixtures}
+        notes.append(f"The workbook {clipped(Path(project.workbook).name, 200)} has changed "
+                     f"since the project was saved; the saved pins, ties and schedule were "
+                     f"kept where their fixtures still exist: check them.")
+    labels = {f.label for f in fresh.fixtures}
     saved = project.edits
     dropped = sorted({x for x in saved.pins if x not in labels}
                      | {x for pair in saved.ties + saved.added for x in pair if x not in labels})
@@ -175,5 +205,67 @@ def restore(project: Project, league: League | None, current_sha: str | None) ->
                          "not restored.")
     if dropped:
         notes.append(f"Fixtures no longer in the workbook were dropped from pins and ties: "
-                     f"{', '.join(dropped)}.")
-    return Restored(edits, schedule, " ".join(notes) or None)
+                     f"{listed(dropped, 10)}.")
+    return Restored(edits, schedule, message(" ".join(notes)) if notes else None)
+
+
+def is_project(path: str | Path) -> bool:
+    """True for a project file's name (`.leaguegrid`)."""
+    return Path(path).suffix.casefold() == SUFFIX
+
+
+@dataclass
+class ProjectRead:
+    """A project file as read: the project, or the one sentence saying why it cannot be used."""
+
+    project: Project | None
+    problem: str | None = None
+
+
+def try_read_project(path: str | Path, hooks: engine.Hooks | None = None) -> ProjectRead:
+    """read_project, its refusal returned rather than raised (for the window's worker)."""
+    try:
+        return ProjectRead(read_project(path, hooks))
+    except ProjectError as err:
+        return ProjectRead(None, message(str(err)))
+
+
+@dataclass
+class OpenedProject:
+    """A project file opened on its workbook: the league with the project's pins, ties and
+    clash edits applied and its clash graph; `problem` when the project cannot be used."""
+
+    opened: league.OpenedLeague | None
+    restored: Restored | None = None
+    problem: str | None = None
+    damaged: bool = False  # parts of the project file were damaged and left out
+
+    @property
+    def warning(self) -> str | None:
+        """The 'changed' and 'dropped' notices (and damaged parts left out), or None."""
+        return self.restored.warning if self.restored is not None else None
+
+
+def open_project(path: str | Path, columns: dict[str, str] | None = None,
+                 hooks: engine.Hooks | None = None) -> OpenedProject:
+    """Read a project file and its workbook (as the command line works on it). `columns`,
+    typed by the coordinator, replaces the project's matching and must fit the file
+    (ColumnsError otherwise); the project's own is dropped with a notice when it no longer
+    fits."""
+    found = try_read_project(path, hooks)
+    if found.project is None:
+        return OpenedProject(None, problem=found.problem)
+    data = found.project
+    workbook = data.workbook_path(path)
+    typed = columns is not None
+    opened = league.open_league(workbook, columns if typed else (data.mapping or None),
+                                hooks=hooks, typed=typed)
+    sha = league.sha256_of(workbook) if Path(workbook).is_file() else None
+    restored = restore(data, opened.league, sha)
+    if opened.ok and opened.league is not None:
+        working = working_league(opened.league, restored.edits)
+        opened = league.OpenedLeague(
+            opened.path, LoadResult(working, opened.result.problems),
+            league.clash_graph(working, restored.edits.waived), sha, columns=opened.columns,
+            notice=opened.notice)
+    return OpenedProject(opened, restored, damaged=bool(data.notices))

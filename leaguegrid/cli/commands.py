@@ -9,34 +9,40 @@ import sys
 import time
 
 from leaguegrid import engine
-from leaguegrid.app import counting, export, league, planning
+from leaguegrid.app import counting, export, league, planning, project
 from leaguegrid.app import whatif as what
 from leaguegrid.app.demos import demo_leagues
 from leaguegrid.app.matching import ColumnsError
-from leaguegrid.app.project import ProjectError
 from leaguegrid.cli import render
 from leaguegrid.cli.exits import INPUT_PROBLEMS, OK, PLAN_EXITS, STOPPED, WRITE_FAILED, UsageError
 
 
-def _read(args: argparse.Namespace) -> league.OpenedLeague | None:
-    """The league the command names, read with its column matching (a notice of a dropped
-    matching on stderr); None, after saying why, when a project file cannot be read."""
+def _read(args: argparse.Namespace) -> tuple[league.OpenedLeague | None, bool]:
+    """The league a command works on: a workbook or CSV as read, or a project file's workbook
+    with the project's pins, ties and clash edits (its notices on stderr), and whether parts
+    of the project file were damaged; None when the project file cannot be used (said on
+    stderr in one sentence). `--columns` replaces any remembered matching and must fit."""
+    typed = args.columns is not None
     try:
-        opened = league.open_source(args.file, args.columns)
+        if not project.is_project(args.file):
+            opened, damaged = league.open_league(args.file, args.columns, typed=typed), False
+        else:
+            found = project.open_project(args.file, args.columns)
+            for text in (found.problem, found.warning):
+                if text:
+                    print(f"leaguegrid {args.command}: {text}", file=sys.stderr)
+            opened, damaged = found.opened, found.damaged
     except ColumnsError as err:
         raise UsageError(f"--columns: {err}") from err
-    except ProjectError as err:
-        print(f"leaguegrid {args.command}: {err}", file=sys.stderr)
-        return None
-    if opened.notice:
+    if opened is not None and opened.notice:
         print(opened.notice, file=sys.stderr)
-    return opened
+    return opened, damaged
 
 
 def _open(args: argparse.Namespace, rounds: int | None = None) -> league.OpenedLeague | None:
     """Read a league, print its problems to stderr; None when it cannot be used. `rounds`, when
     given, must be a round count the league can have."""
-    opened = _read(args)
+    opened = _read(args)[0]
     if opened is None:
         return None
     render.print_problems(opened.result.problems, sys.stderr)
@@ -55,11 +61,11 @@ def _check_rounds(opened: league.OpenedLeague, rounds: int) -> None:
 
 
 def cmd_check(args: argparse.Namespace) -> int:
-    opened = _read(args)
+    opened, damaged = _read(args)
     if opened is None:
         return INPUT_PROBLEMS
     render.print_check(opened, sys.stdout)
-    return OK if opened.ok else INPUT_PROBLEMS
+    return OK if opened.ok and not damaged else INPUT_PROBLEMS
 
 
 def cmd_count(args: argparse.Namespace) -> int:
@@ -126,10 +132,10 @@ def cmd_plan(args: argparse.Namespace) -> int:
     fewest = planning.fewest_rounds(outcome.result, hooks) if args.out is not None else None
     try:
         written = export.export_schedule(opened.league, opened.graph, outcome.schedule,
-                                         targets, fewest).written
+                                         targets, fewest, inputs=[args.file, args.keep]).written
     except export.ExportFailed as err:
         render.print_written(err.written, report)
-        print(f"leaguegrid plan: could not write: {err}", file=sys.stderr)
+        print(f"leaguegrid plan: {err}", file=sys.stderr)
         return WRITE_FAILED
     render.print_written(written, report)
     return OK
@@ -188,7 +194,7 @@ def cmd_new(args: argparse.Namespace) -> int:
     except FileExistsError as err:
         raise UsageError(f"{args.file} exists already; choose another name") from err
     except OSError as err:
-        print(f"leaguegrid new: could not write: {err}", file=sys.stderr)
+        print(f"leaguegrid new: {export.failure_text(err)}", file=sys.stderr)
         return WRITE_FAILED
     print(f"Wrote a blank league workbook to {written}; fill it in, then run "
           f"`leaguegrid check {args.file}`.")

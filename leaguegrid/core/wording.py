@@ -4,6 +4,7 @@ for huge ones, estimates always labelled as estimates, plurals ("1 round", "2 ro
 
 from __future__ import annotations
 
+import errno
 import math
 from fractions import Fraction
 from typing import Any
@@ -280,10 +281,11 @@ def stale_matching(file: str, misses: str) -> str:
             "was dropped and the file read by its own headers.")
 
 
-def counted(value: Any, one: str, many: str) -> str:
-    """A count with its noun, singular for exactly 1: '1 grouping', '6 groupings', an
-    estimate or 'not computed' with the plural."""
-    return f"{full_text(value)} {one if value == 1 and isinstance(value, int) else many}"
+def counted(value: Any, one: str, many: str | None = None) -> str:
+    """A count with its noun, digits grouped, singular for exactly 1: '1 grouping',
+    '300,000 items'; an estimate or 'not computed' with the plural."""
+    noun = one if value == 1 and isinstance(value, int) else (many or one + "s")
+    return f"{full_text(value)} {noun}"
 
 
 def guide_numbers(name: str, fixtures: int, clashes: int, fewest: int | None,
@@ -331,3 +333,49 @@ GUIDE_STEPS = (
     "Draw (Ctrl+D) a schedule for the rounds in the toolbar; move fixtures by dragging them.",
     "Check each team's season, then export calendars (Ctrl+E) or print (Ctrl+Alt+P).",
 )
+
+
+MESSAGE_CHARS = 2000  # the longest message a box or the command line shows
+SHOWN_ITEMS = 5  # items of a long list a message names before counting the rest
+
+WRITE_REASONS = {  # errno name -> why a file could not be written, in the coordinator's words
+    "ENOSPC": "the disk is full",
+    "EDQUOT": "the disk quota is used up",
+    "EFBIG": "the file would be larger than this system allows (or the disk is full)",
+    "EACCES": "the folder or file does not allow writing",
+    "EPERM": "the folder or file does not allow writing",
+    "EROFS": "the disk is read-only",
+    "EISDIR": "a folder of that name is in the way",
+    "ENOTDIR": "part of the path is a file, not a folder",
+    "ENOENT": "the folder does not exist",
+    "ENAMETOOLONG": "the name is too long for the file system",
+}
+
+
+def clipped(text: str, most: int = 120) -> str:
+    """Text of at most `most` characters: a long one keeps its start and end around '…'."""
+    if len(text) <= most:
+        return text
+    head = (most - 1) * 2 // 3
+    return text[:head] + "…" + text[len(text) - (most - 1 - head):]
+
+
+def listed(items: list[str], most: int = SHOWN_ITEMS) -> str:
+    """The first `most` items joined by '; ', the rest counted ('and 12 more')."""
+    shown = "; ".join(clipped(item, 200) for item in items[:most])
+    rest = len(items) - most
+    return shown + (f"; and {grouped(rest)} more" if rest > 0 else "")
+
+
+def message(text: str) -> str:
+    """A message cut to MESSAGE_CHARS, however much it was asked to hold."""
+    return clipped(text, MESSAGE_CHARS)
+
+
+def write_failure(target: str, err: OSError) -> str:
+    """One sentence: which file could not be written and why."""
+    reason = WRITE_REASONS.get(errno.errorcode.get(err.errno or 0, ""))
+    if reason is None:
+        reason = (err.strerror or str(err) or type(err).__name__).lower()
+    return message(f"could not write {clipped(target, 300)}: {reason}; nothing there was "
+                   "changed")

@@ -157,9 +157,8 @@ class FileFlows:
     def _write_project(self: Any, path: str) -> None:
         try:
             project.save_project(path, self.doc.project(self.rounds_box.value()))
-        except OSError as err:
-            self.last_error = str(err)
-            self.stage_label.setText(f"The project could not be saved: {err}")
+        except OSError as err:  # a WriteError: "could not write <path>: <why>", in a box
+            self._warn(str(err), "The project could not be saved.")
             return
         self.doc.project_path = path
         self.doc.mark_saved()
@@ -167,27 +166,31 @@ class FileFlows:
         self.stage_label.setText(f"Project saved to {path}.")
 
     def open_project(self: Any, path: str) -> None:
-        try:
-            data = project.read_project(path)
-        except project.ProjectError as err:
-            self._warn(str(err))
-            return
-        workbook = data.workbook_path(path)
+        """Read the project file in the worker thread, then its workbook, then lay it on."""
+        def read(found: project.ProjectRead) -> None:
+            if found.project is None:
+                self._warn(str(found.problem))
+                return
+            data = found.project
+            workbook = data.workbook_path(path)
 
-        def restore() -> None:
-            found = Path(workbook).is_file()
-            warning = self.doc.restore(data, league.sha256_of(workbook) if found else None)
-            self.doc.project_path = path
-            self._remember(path)
-            if data.rounds:
-                self._set_rounds(data.rounds, user=True)
-            if warning:
-                self._warn(warning)
-            self.schedule_view.refresh()
-            self._update_enabled()
-            self.doc.undo.setClean()
+            def restore() -> None:
+                there = Path(workbook).is_file()
+                warning = self.doc.restore(data, league.sha256_of(workbook) if there else None)
+                self.doc.project_path = path
+                self._remember(path)
+                if data.rounds:
+                    self._set_rounds(data.rounds, user=True)
+                if warning:
+                    self._warn(warning)
+                self.schedule_view.refresh()
+                self._update_enabled()
+                self.doc.undo.setClean()
 
-        self._read(workbook, data.mapping or None, after=restore)
+            self._read(workbook, data.mapping or None, after=restore)
+
+        work = call(project.try_read_project, path)
+        self.runner.start(Job(f"Reading {Path(path).name}", work, read))
 
     # export -----------------------------------------------------------------------------
     def export_dialog(self: Any) -> None:

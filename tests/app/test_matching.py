@@ -8,9 +8,9 @@ import openpyxl
 import pytest
 
 from leaguegrid.app.editing import Edits
-from leaguegrid.app.league import open_league, open_source
+from leaguegrid.app.league import open_league
 from leaguegrid.app.matching import ColumnsError, guess_matching, parse_columns
-from leaguegrid.app.project import Project, save_project
+from leaguegrid.app.project import Project, open_project, save_project
 
 KEYS = ("fixture, home, away, venue, pitch, division, round, date, time, played, score, "
         "clash on")
@@ -91,10 +91,10 @@ def test_project_matching_and_columns_that_replace_it(tmp_path):
     project = tmp_path / "spring.leaguegrid"
     save_project(project, Project(workbook=str(path), mapping={"Home": "Host team"},
                                   edits=Edits(pins={"Kites v Voles": 2})))
-    stale = open_source(project)
+    stale = open_project(project).opened
     assert stale.notice.startswith("The column matching remembered for spring.xlsx no longer "
                                    "fits it (no column 'Host team' for Home)")
     assert not stale.ok  # read by its own headers, which are not ours: the file's problems
-    typed = open_source(project, {"Home": "Hosts", "Away": "Guests"})
+    typed = open_project(project, {"Home": "Hosts", "Away": "Guests"}).opened
     assert typed.ok and typed.notice is None
     assert typed.league.pins == {"Kites v Voles": 2}  # the project's pin, on the workbook

@@ -145,7 +145,8 @@ def test_the_pdf_is_written_whole_and_never_over_the_workbook(tmp_path):
     missing = tmp_path / "no such folder" / "x.pdf"
     with pytest.raises(ExportFailed) as failed:
         write_pdf(missing, b"%PDF", league)
-    assert str(failed.value) == f"cannot write {missing}: No such file or directory"
+    assert str(failed.value) == (f"could not write {missing}: the folder does not exist; "
+                                 "nothing there was changed")
 
 
 def test_rounds_with_dates_keep_date_order_on_team_pages(tmp_path):

@@ -150,7 +150,8 @@ def test_a_pdf_that_cannot_be_written_says_why(qtbot, drawn, tmp_path):
     target = tmp_path / "missing" / "x.pdf"
     drawn.export_pdf(str(target), "A4")
     qtbot.waitUntil(lambda: not drawn.runner.busy, timeout=60_000)
-    assert drawn.last_error == f"cannot write {target}: No such file or directory"
+    assert drawn.last_error == (f"could not write {target}: the folder does not exist; "
+                               "nothing there was changed")
     assert drawn.last_export == []
     assert not target.parent.exists()
 

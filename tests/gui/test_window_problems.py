@@ -101,14 +101,38 @@ def test_dropping_a_workbook_on_the_window_opens_it(qtbot, window, tmp_path):
 def test_a_bad_project_is_said_in_a_box_that_does_not_wait(qtbot, window, tmp_path):
     path = tmp_path / "season.leaguegrid"
     path.write_text('["a list, not a project"]', encoding="utf-8")
-    window.open_path(str(path))  # returns with the box open: nothing waits for its OK
+    window.open_path(str(path))  # read in the worker; the box then opens and nothing waits
     message = f"{path} is not a LeagueGrid project file"
+    qtbot.waitUntil(lambda: window.last_error is not None)
     assert window.last_error == message
     assert window.stage_label.text() == message
     qtbot.waitUntil(lambda: isinstance(QApplication.activeModalWidget(), QMessageBox))
     box = QApplication.activeModalWidget()
     assert (box.text(), box.icon()) == (message, QMessageBox.Icon.Warning)
     box.accept()
+    qtbot.waitUntil(lambda: QApplication.activeModalWidget() is None)
+
+
+def test_a_damaged_project_is_read_in_the_worker_and_its_sound_parts_open(qtbot, window,
+                                                                           tmp_path, demo):
+    import json
+    import shutil
+
+    shutil.copy(demo / "small.xlsx", tmp_path / "small.xlsx")
+    path = tmp_path / "season.leaguegrid"
+    path.write_text(json.dumps({
+        "format": "leaguegrid-project", "version": 1,
+        "workbook": {"path": str(tmp_path / "small.xlsx"), "relative": "small.xlsx"},
+        "pins": {"Herons v Wrens": "soon", "Otters v Wrens": 3}, "ties": 7}), encoding="utf-8")
+    window.open_path(str(path))
+    assert window.runner.busy and window.last_error is None  # read off the window's thread
+    qtbot.waitUntil(lambda: window.doc.project_path == str(path), timeout=30_000)
+    assert window.doc.edits.pins == {"Otters v Wrens": 3}
+    assert window.last_error == (
+        "The project file season.leaguegrid is damaged in 2 places; those parts were left out: "
+        "pins[\"Herons v Wrens\"] is 'soon', not a round number; ties is 7, not a list.")
+    qtbot.waitUntil(lambda: isinstance(QApplication.activeModalWidget(), QMessageBox))
+    QApplication.activeModalWidget().accept()
     qtbot.waitUntil(lambda: QApplication.activeModalWidget() is None)
 
 

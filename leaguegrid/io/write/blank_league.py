@@ -22,6 +22,7 @@ from leaguegrid.io.read.rules_sheets import (
 )
 from leaguegrid.io.read.settings_sheet import SETTINGS_COLUMNS
 from leaguegrid.io.write.atomic import atomic_write
+from leaguegrid.io.write.xlsx_bytes import workbook_bytes
 
 DIVISION = "Example Under-10s"
 FIXED_TIME = dt.datetime(2026, 1, 1, 12, 0)  # workbook properties, so every copy is the same
@@ -149,5 +150,5 @@ def write_blank_league(path: str | Path) -> Path:
     if target.exists():  # said before any work; atomic_write checks again as it finishes
         raise FileExistsError(str(target))
     with atomic_write(target, "wb", replace=False) as handle:
-        blank_league_workbook().save(handle)
+        handle.write(workbook_bytes(blank_league_workbook()))
     return target

@@ -6,8 +6,10 @@ Rules (for the README):
   then a sheet per team (named by the team), per venue ("Venue <name>") and per club
   ("Club <name>", the fixtures of the teams whose Club is that name). Team, venue and club
   sheets list fixtures in date and time order.
-- Sheet names drop the characters Excel forbids ([ ] : * ? / \\), are cut to 31 characters and
-  made unique (case-insensitively) with " (2)", " (3)" ...
+- Sheet names follow Excel's rules (leaguegrid/io/write/names.py): the characters Excel forbids
+  ([ ] : * ? / \\) become "_", at most 31 characters, no leading or trailing apostrophe, never
+  "History", unique ignoring case; Calendar and Summary keep their names and a team, venue or
+  club sheet that would take one gets " (2)".
 - Header rows are frozen and filterable, dates are real date cells (yyyy-mm-dd), times real
   time cells (hh:mm), column widths fit the longest value (at most 60).
 - Text that starts with = + - or @ is stored as a text cell (with Excel's quote prefix), never
@@ -20,7 +22,6 @@ Rules (for the README):
 from __future__ import annotations
 
 import datetime as dt
-import re
 from collections.abc import Iterable, Sequence
 from dataclasses import dataclass, field
 from pathlib import Path
@@ -45,8 +46,15 @@ from leaguegrid.core.dated import (
 )
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import CAUTION, METHODS
-from leaguegrid.io.write.atomic import StrPath, atomic_write, refuse_overwriting_input
+from leaguegrid.io.write.atomic import (
+    StrPath,
+    atomic_write,
+    refuse_overwriting_input,
+    write_error,
+)
 from leaguegrid.io.write.csv_out import FORMULA_START
+from leaguegrid.io.write.names import sheet_title
+from leaguegrid.io.write.xlsx_bytes import workbook_bytes
 
 CALENDAR_SHEET = "Calendar"
 SUMMARY_SHEET = "Summary"
@@ -58,8 +66,6 @@ DATE_FORMAT = "yyyy-mm-dd"
 TIME_FORMAT = "hh:mm"
 MAX_WIDTH = 60
 EXACT_NUMBER_LIMIT = 10**15  # Excel keeps 15 significant digits
-
-_FORBIDDEN_IN_SHEET_NAME = re.compile(r"[\[\]:*?/\\\x00-\x1f]")
 
 
 @dataclass
@@ -103,21 +109,6 @@ class CalendarSummary:
         }
         values.update(extra)
         return cls(**values)
-
-
-def sheet_title(name: str, taken: set[str]) -> str:
-    """An Excel-safe sheet name for `name`, unique among `taken` (case-insensitive); adds it."""
-    base = _FORBIDDEN_IN_SHEET_NAME.sub("_", name).strip().strip("'").strip() or "Sheet"
-    if base.casefold() == "history":  # reserved by Excel
-        base = "History_"
-    title = base[:31]
-    n = 2
-    while title.casefold() in taken:
-        suffix = f" ({n})"
-        title = base[: 31 - len(suffix)].rstrip() + suffix
-        n += 1
-    taken.add(title.casefold())
-    return title
 
 
 def _write_cell(ws: Worksheet, row: int, col: int, value: object) -> int:
@@ -272,5 +263,10 @@ def write_calendar_xlsx(path: StrPath, dated: DatedSchedule, summary: CalendarSu
     """Write the calendar workbook to `path` atomically; never over the league's own file."""
     refuse_overwriting_input(path, [dated.league.source])
     wb = build_calendar_workbook(dated, summary)
+    wb.properties.modified = dt.datetime.now(tz=dt.UTC).replace(tzinfo=None)
+    try:
+        data = workbook_bytes(wb)  # openpyxl's own temporary files may meet a full disk too
+    except OSError as err:
+        raise write_error(path, err) from err
     with atomic_write(path, "wb") as handle:
-        wb.save(handle)
+        handle.write(data)

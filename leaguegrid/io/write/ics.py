@@ -3,8 +3,9 @@
 Rules (for the README):
 - Files in the target folder: "team-<team>.ics" for every team, "club-<club>.ics" for every
   club named in the Teams sheet (its teams' fixtures), and "league-<league>.ics" with every
-  fixture (the only file holding fixtures that name no teams). Characters that file systems
-  forbid become "_".
+  fixture (the only file holding fixtures that name no teams). The names are safe on every
+  file system (leaguegrid/io/write/names.py): forbidden characters become "_", and a name too
+  long in bytes is cut and kept unique with a short hash.
 - Event identifiers (UID) come from stable keys, never from row order nor the file's name or
   place: the League setting (when given), the division, home team and away team (compared case-
   and space-insensitively), or the fixture label for a fixture with no teams; where two
@@ -45,13 +46,19 @@ from leaguegrid.core.dated import (
 from leaguegrid.core.model import Fixture, League, RoundInfo
 from leaguegrid.core.names import name_key
 from leaguegrid.core.wording import CAUTION
-from leaguegrid.io.write.atomic import ExportError, StrPath, atomic_write, refuse_overwriting_input
+from leaguegrid.io.write import names
+from leaguegrid.io.write.atomic import (
+    ExportError,
+    StrPath,
+    atomic_write,
+    refuse_overwriting_input,
+    write_error,
+)
 
 PRODID = "-//LeagueGrid//LeagueGrid calendar export//EN"
 UID_DOMAIN = "leaguegrid.invalid"
 DEFAULT_GAME_MINUTES = 90
 MAX_LINE_OCTETS = 75
-_FORBIDDEN_IN_FILE_NAME = re.compile(r'[<>:"/\\|?*\x00-\x1f]')
 _CONTROL = re.compile(r"[\x00-\x08\x0b-\x1f\x7f]")  # every control character but tab and LF
 
 
@@ -203,14 +210,7 @@ def calendar_text(
 
 def file_name(prefix: str, name: str, taken: set[str]) -> str:
     """A safe, unique (case-insensitive) "<prefix>-<name>.ics" file name; adds it to `taken`."""
-    base = _FORBIDDEN_IN_FILE_NAME.sub("_", f"{prefix}-{name}").strip().rstrip(". ")[:120]
-    candidate = f"{base}.ics"
-    n = 2
-    while candidate.casefold() in taken:
-        candidate = f"{base} ({n}).ics"
-        n += 1
-    taken.add(candidate.casefold())
-    return candidate
+    return names.file_name(f"{prefix}-{name}", ".ics", taken)
 
 
 def _check_dates(rows: Sequence[DatedFixture]) -> None:
@@ -256,8 +256,11 @@ def write_ics_files(folder: StrPath, dated: DatedSchedule) -> list[Path]:
         refuse_overwriting_input(path, [league.source])
         title = league_title if prefix == "league" else f"{league_title}: {name}"
         planned.append((path, calendar_text(title, rows, uids, tz, moment, minutes)))
-    target.mkdir(parents=True, exist_ok=True)
-    for path, text in planned:
-        with atomic_write(path, "wb") as handle:
+    try:
+        target.mkdir(parents=True, exist_ok=True)
+    except OSError as err:
+        raise write_error(target, err) from err
+    for i, (path, text) in enumerate(planned):
+        with atomic_write(path, "wb", tidy=i == 0) as handle:  # one folder: tidied once
             handle.write(text.encode("utf-8"))
     return [path for path, _ in planned]

@@ -4,6 +4,7 @@ round, text never a formula, clash reasons never written, real date cells, atomi
 from __future__ import annotations
 
 import datetime as dt
+import errno
 import importlib.util
 import io
 import zipfile
@@ -12,9 +13,10 @@ from pathlib import Path
 
 import openpyxl
 import pytest
+from openpyxl.writer.excel import ExcelWriter
 
 from leaguegrid.core.model import ClashRow, Fixture, League, RoundInfo, Schedule, Settings, Team
-from leaguegrid.io.write.atomic import InputOverwriteError
+from leaguegrid.io.write.atomic import InputOverwriteError, WriteError
 from leaguegrid.io.write.calendar_xlsx import (
     CAUTION,
     CalendarSummary,
@@ -293,13 +295,15 @@ def test_failed_save_leaves_no_half_file(tmp_path, monkeypatch):
     out = tmp_path / "calendar.xlsx"
     out.write_bytes(b"last week's calendar")
 
-    def broken_save(self, handle):
-        handle.write(b"PK\x03\x04 half a zip")
-        raise OSError("disk full")
+    def broken_write(self):
+        self._archive.writestr("xl/half.xml", "<half")
+        raise OSError(errno.ENOSPC, "No space left on device")
 
-    monkeypatch.setattr(openpyxl.Workbook, "save", broken_save)
-    with pytest.raises(OSError, match="disk full"):
+    monkeypatch.setattr(ExcelWriter, "write_data", broken_write)
+    with pytest.raises(WriteError) as failed:
         write_calendar_xlsx(out, date_schedule(league, schedule), summary_for(league, schedule))
+    assert str(failed.value) == (f"could not write {out}: the disk is full; nothing there was "
+                                 "changed")
     assert out.read_bytes() == b"last week's calendar"
     assert [p.name for p in tmp_path.iterdir()] == ["calendar.xlsx"]
 
