@@ -27,10 +27,13 @@ INSET = 2  # between the cell's edge and its fill
 
 def paint_round(painter: QPainter, rect: QRect, side: str, letter: str, is_break: bool,
                 pal: QPalette) -> None:
-    """One round of a strip: the side's fill, the letter, and the bar of a break."""
+    """One round of a strip: the side's fill in a thin frame, the letter, and the bar of a
+    break."""
     painter.save()
     inner = rect.adjusted(INSET, INSET, -INSET, -INSET)
     painter.fillRect(inner, palette.side_colour(side, pal))
+    painter.setPen(pal.color(QPalette.ColorRole.Mid))
+    painter.drawRect(inner.adjusted(0, 0, -1, -1))
     text = pal.color(QPalette.ColorRole.Text)
     if is_break:
         painter.fillRect(QRect(inner.left(), inner.bottom() - BAR + 1, inner.width(), BAR), text)

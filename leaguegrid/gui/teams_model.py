@@ -6,7 +6,7 @@ from __future__ import annotations
 from typing import Any
 
 from leaguegrid.app.printout import TEAM_COLUMNS
-from leaguegrid.app.seasons import Game, Seasons, SeasonRound, TeamSeason
+from leaguegrid.app.seasons import Game, SeasonRound, Seasons, TeamSeason
 from leaguegrid.core import wording
 from leaguegrid.gui.season_strip import BREAK_ROLE, SIDE_ROLE
 from leaguegrid.gui.table_model import RIGHT, ReadOnlyTable, Role

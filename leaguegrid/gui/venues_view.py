@@ -61,10 +61,14 @@ class VenuesView(QWidget):
         self.table.verticalHeader().setVisible(False)
         self.table.horizontalHeader().setSectionResizeMode(
             QHeaderView.ResizeMode.ResizeToContents)
+        self.table.horizontalHeader().setStretchLastSection(True)
         self.table.setWordWrap(True)
+        self.count = QLabel("")
+        self.count.setObjectName("venueCount")
         top = QHBoxLayout()
         top.addWidget(pick)
         top.addWidget(self.venue_box, 1)
+        top.addWidget(self.count)
         layout = QVBoxLayout(self)
         layout.addWidget(self.note)
         layout.addLayout(top)
@@ -98,6 +102,5 @@ class VenuesView(QWidget):
         i = self.venue_box.currentIndex()
         part = self.parts[i] if 0 <= i < len(self.parts) else None
         self.model.set_part(part)
-        if part is not None:
-            self.venue_box.setToolTip("; ".join(part.lines))
+        self.count.setText("; ".join(part.lines) if part is not None else "")
         self.table.resizeRowsToContents()
