@@ -5,7 +5,7 @@ letter; so it reads without colour. The legend is painted by the same code."""
 from __future__ import annotations
 
 from PySide6.QtCore import QModelIndex, QRect, QSize, Qt
-from PySide6.QtGui import QPainter, QPalette, QPixmap
+from PySide6.QtGui import QFontMetrics, QPainter, QPalette, QPixmap
 from PySide6.QtWidgets import (
     QHBoxLayout,
     QLabel,
@@ -42,6 +42,12 @@ def paint_round(painter: QPainter, rect: QRect, side: str, letter: str, is_break
     painter.restore()
 
 
+def strip_size(metrics: QFontMetrics, text: str = "HH") -> QSize:
+    """The size of a strip cell holding `text` (two letters at the least) in a font."""
+    return QSize(max(metrics.horizontalAdvance(text), metrics.horizontalAdvance("HH"))
+                 + 4 * INSET + 6, metrics.height() + 2 * INSET + BAR + 4)
+
+
 class StripDelegate(QStyledItemDelegate):
     """Draws the round cells of the Teams table (those with a side); other cells as usual."""
 
@@ -62,10 +68,7 @@ class StripDelegate(QStyledItemDelegate):
     def sizeHint(self, option: QStyleOptionViewItem, index: QModelIndex) -> QSize:  # noqa: N802
         if index.data(SIDE_ROLE) is None:
             return super().sizeHint(option, index)
-        metrics = option.fontMetrics
-        text = str(index.data(Role.DisplayRole) or "")
-        return QSize(max(metrics.horizontalAdvance(text), metrics.horizontalAdvance("HH"))
-                     + 4 * INSET + 6, metrics.height() + 2 * INSET + BAR + 4)
+        return strip_size(option.fontMetrics, str(index.data(Role.DisplayRole) or ""))
 
 
 def legend(parent: QWidget | None = None) -> QWidget:
@@ -75,9 +78,7 @@ def legend(parent: QWidget | None = None) -> QWidget:
     box.setAccessibleName("Legend of the team strips")
     row = QHBoxLayout(box)
     row.setContentsMargins(0, 0, 0, 0)
-    metrics = box.fontMetrics()
-    size = QSize(metrics.horizontalAdvance("HH") + 4 * INSET + 6,
-                 metrics.height() + 2 * INSET + BAR + 4)
+    size = strip_size(box.fontMetrics())
     for side, is_break, text in wording.SEASON_LEGEND:
         letter = wording.SIDE_LETTERS[side] + (wording.BREAK_MARK if is_break else "")
         pixmap = QPixmap(size)

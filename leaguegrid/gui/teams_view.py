@@ -10,7 +10,7 @@ from PySide6.QtWidgets import QHeaderView, QLabel, QSplitter, QVBoxLayout, QWidg
 from leaguegrid.app.seasons import Seasons, team_seasons
 from leaguegrid.core import wording
 from leaguegrid.gui.document import LeagueDocument
-from leaguegrid.gui.season_strip import StripDelegate, legend
+from leaguegrid.gui.season_strip import StripDelegate, legend, strip_size
 from leaguegrid.gui.table_model import row_view, selected_row
 from leaguegrid.gui.teams_model import TeamRoundsModel, TeamsModel
 
@@ -40,8 +40,10 @@ class TeamsView(QWidget):
         self.table.setAccessibleName("Teams and their rounds")
         self.table.setItemDelegate(StripDelegate(self.table))
         self.table.verticalHeader().setVisible(False)
-        self.table.horizontalHeader().setSectionResizeMode(
-            QHeaderView.ResizeMode.ResizeToContents)
+        self.table.verticalHeader().setDefaultSectionSize(
+            strip_size(self.table.fontMetrics()).height())
+        self.table.horizontalHeader().setResizeContentsPrecision(0)  # the rows in sight
+        self.table.horizontalHeader().setStretchLastSection(True)
         self.table.selectionModel().selectionChanged.connect(self._picked)
         self.heading = _label("teamHeading", "Selected team")
         self.rounds_model = TeamRoundsModel(self)
@@ -74,10 +76,11 @@ class TeamsView(QWidget):
     def refresh(self) -> None:
         """Lay out the document's schedule team by team, keeping the selected team."""
         keep = self.selected_team()
-        schedule, league = self.doc.schedule, self.doc.working_league()
+        schedule, league = self.doc.schedule, self.doc.league  # edits add no fixture
         self.seasons = None if schedule is None or league is None else \
             team_seasons(league, schedule)
         self.model.set_seasons(self.seasons)
+        self._size_columns()
         if self.seasons is None:
             self.summary.setText(wording.NO_SEASON)
             self.warnings.setText("")
@@ -91,6 +94,15 @@ class TeamsView(QWidget):
         row = self.model.row_of(keep) if keep is not None else None
         self.table.selectRow(row if row is not None else 0)
         self._show_team(self.selected_team())
+
+    def _size_columns(self) -> None:
+        """Rounds as wide as a strip cell; the other columns as wide as their contents."""
+        width = strip_size(self.table.fontMetrics()).width()
+        for column in range(self.model.columnCount()):
+            if self.model.lead <= column < self.model.lead + self.model.rounds:
+                self.table.setColumnWidth(column, width)
+            else:
+                self.table.resizeColumnToContents(column)
 
     def selected_team(self) -> str | None:
         row = selected_row(self.table)

@@ -79,7 +79,7 @@ class VenuesView(QWidget):
     def refresh(self) -> None:
         """The venues of the document's schedule, keeping the venue shown."""
         keep = self.venue_box.currentText()
-        schedule, league = self.doc.schedule, self.doc.working_league()
+        schedule, league = self.doc.schedule, self.doc.league  # edits add no fixture
         message = wording.NO_VENUES
         self.parts = []
         if schedule is not None and league is not None:
