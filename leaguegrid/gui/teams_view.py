@@ -96,8 +96,11 @@ class TeamsView(QWidget):
         self._show_team(self.selected_team())
 
     def _size_columns(self) -> None:
-        """Rounds as wide as a strip cell; the other columns as wide as their contents."""
-        width = strip_size(self.table.fontMetrics()).width()
+        """Rounds as wide as the widest strip cell (two games in a round after a move that
+        breaks a clash: 'H•A'); the other columns as wide as their contents."""
+        letters = [r.letter for t in (self.seasons.teams if self.seasons else ())
+                   for r in t.rounds]
+        width = strip_size(self.table.fontMetrics(), max(letters, key=len, default="")).width()
         for column in range(self.model.columnCount()):
             if self.model.lead <= column < self.model.lead + self.model.rounds:
                 self.table.setColumnWidth(column, width)
