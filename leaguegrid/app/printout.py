@@ -142,6 +142,17 @@ def _venue_part(venue: str, rows: list[DatedFixture]) -> Part:
                 _table(columns, cells, keep=2, always=("Round", *columns[2:])))
 
 
+def _venue_parts(league: League, by_date: list[DatedFixture]) -> list[Part]:
+    return [_venue_part(venue, venue_fixtures(by_date, venue))
+            for venue in venue_names(league.fixtures)]
+
+
+def venue_parts(league: League, schedule: Schedule) -> list[Part]:
+    """A part per venue (in natural order): its rounds by date down, its pitches across (the
+    window's Venues view shows these). Raises DatesError as build_printout does."""
+    return _venue_parts(league, in_date_order(dated_fixtures(league, schedule)))
+
+
 def part_counts(league: League, schedule: Schedule) -> tuple[int, int, int]:
     """How many round, team and venue parts the printout of `schedule` has (without making it)."""
     return schedule.rounds, len(team_names(league)), len(venue_names(league.fixtures))
@@ -163,8 +174,7 @@ def build_printout(league: League, schedule: Schedule) -> Printout:
     parts += [_team_part(league, team, team_fixtures(by_date, team),
                          [infos[n - 1] for n in byes.get(team, [])])
               for team in team_names(league)]
-    parts += [_venue_part(venue, venue_fixtures(by_date, venue))
-              for venue in venue_names(league.fixtures)]
+    parts += _venue_parts(league, by_date)
     return Printout(league.settings.league or league.name, CAUTION, tuple(parts))
 
 

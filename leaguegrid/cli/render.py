@@ -12,6 +12,7 @@ import networkx as nx
 from leaguegrid.app.counting import CountReport, Number
 from leaguegrid.app.league import OpenedLeague
 from leaguegrid.app.planning import PlanOutcome, requests_unmet
+from leaguegrid.app.seasons import team_seasons
 from leaguegrid.app.whatif import WhatIfOutcome
 from leaguegrid.core.model import League, Problem
 from leaguegrid.core.wording import (
@@ -21,6 +22,7 @@ from leaguegrid.core.wording import (
     counted_note,
     plural,
     rules_note,
+    season_warnings_head,
     times_text,
     when_text,
 )
@@ -156,8 +158,9 @@ def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool
 
 
 def print_plan(outcome: PlanOutcome, league: League, out: TextIO, err: TextIO) -> None:
-    """What `plan` prints: the seed, the count, notes and rules, the score and the schedule
-    round by round; why there is none on `err`."""
+    """What `plan` prints: the seed, the count, notes and rules, the score, the schedule round
+    by round, then the season warnings (what a family would notice); why there is none on
+    `err`."""
     seed, k = outcome.seed, outcome.rounds
     print(f"{league.name}: {plural(k, 'round')}, seed {seed}"
           + ("" if outcome.seed_given else f" (drawn; --seed {seed} gives this again)"), file=out)
@@ -201,11 +204,16 @@ def print_plan(outcome: PlanOutcome, league: League, out: TextIO, err: TextIO) -
     empty = [r for r, labels in schedule.by_round().items() if not labels]
     if empty:
         print(f"\nEmpty rounds: {', '.join(map(str, empty))}", file=out)
+    warnings = team_seasons(league, schedule).warnings
+    print(f"\n{season_warnings_head(len(warnings))}", file=out)
+    for line in warnings:
+        print(f"  {line}", file=out)
 
 
 def plan_json(outcome: PlanOutcome, league: League, rules: list[tuple[str, bool]],
               byes: dict[str, list[int]], seconds: float) -> dict:
-    """`plan --json`: the schedule, its breaks against the bound, byes and rules, as data."""
+    """`plan --json`: the schedule, its breaks against the bound, byes, rules and the season
+    warnings, as data."""
     schedule, result = outcome.schedule, outcome.result
     method = None
     if schedule is not None:
@@ -230,6 +238,7 @@ def plan_json(outcome: PlanOutcome, league: League, rules: list[tuple[str, bool]
             "assignments": result.assignments, "fixtures": fixtures, "breaks": breaks,
             "byes": byes, "rules": [{"rule": text, "met": met} for text, met in rules],
             "requests": requests,
+            "warnings": [] if schedule is None else list(team_seasons(league, schedule).warnings),
             "notes": schedule.notes if schedule is not None else [],
             "seconds": round(seconds, 3)}
 

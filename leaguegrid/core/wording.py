@@ -379,3 +379,132 @@ def write_failure(target: str, err: OSError) -> str:
         reason = (err.strerror or str(err) or type(err).__name__).lower()
     return message(f"could not write {clipped(target, 300)}: {reason}; nothing there was "
                    "changed")
+
+
+# a team's season: the Teams view, `plan` and its JSON ----------------------------------------
+SIDE_LETTERS = {"home": "H", "away": "A", "bye": "B"}
+SIDE_WORDS = {"home": "Home", "away": "Away", "bye": "Bye"}
+BREAK_MARK = "•"  # after the letter of a game that is a break (also drawn as a bar)
+WARNING_SIGN = "⚠"
+SEASON_LEGEND = (
+    ("home", False, "home game"),
+    ("away", False, "away game"),
+    ("bye", False, "bye (no game that round)"),
+    ("home", True, f"{BREAK_MARK} and a bar: a break, the same side as the team's game "
+                   "before (byes skipped)"),
+)
+NO_SEASON_WARNINGS = ("No warnings: no team plays three in a row at home or away, has two byes "
+                      "in a row or a home count off by more than one, and byes are even within "
+                      "each division.")
+
+
+def and_list(items: list[str]) -> str:
+    """'3', '3 and 4', '3, 4 and 5'."""
+    if len(items) <= 1:
+        return "".join(items)
+    return ", ".join(items[:-1]) + " and " + items[-1]
+
+
+def _rounds_words(rounds: list[int]) -> str:
+    return ("round " if len(rounds) == 1 else "rounds ") + and_list([str(r) for r in rounds])
+
+
+def run_warning(team: str, side: str, rounds: list[int]) -> str:
+    """'Wrens play away in rounds 3, 4 and 5': a run of games on one side (byes skipped)."""
+    return f"{team} play {side} in {_rounds_words(rounds)}"
+
+
+def bye_run_warning(team: str, rounds: list[int]) -> str:
+    """'Otters have byes in rounds 3 and 4': byes in rounds next to each other."""
+    return f"{team} have byes in {_rounds_words(rounds)}"
+
+
+def unequal_byes_warning(division: str | None, most: tuple[str, int],
+                         fewest: tuple[str, int]) -> str:
+    """'Byes are unequal in division U10: Otters have 3 byes, Herons 1'."""
+    where = f" in division {division}" if division else ""
+    return (f"Byes are unequal{where}: {most[0]} have {plural(most[1], 'bye')}, "
+            f"{fewest[0]} {fewest[1]}")
+
+
+def home_balance_warning(team: str, home: int, away: int) -> str:
+    """'Wrens play 5 home games and 2 away games'."""
+    return f"{team} play {plural(home, 'home game')} and {plural(away, 'away game')}"
+
+
+def longest_run_text(home: int, away: int) -> str:
+    """A team's longest runs of games on one side: '2 home, 3 away'."""
+    return f"{home} home, {away} away"
+
+
+def break_note(side: str) -> str:
+    """What a break is, where one is shown: 'break: home again'."""
+    return f"break: {side} again"
+
+
+def strip_tip(title: str, side: str, opponent: str | None, place: str, brk: bool) -> str:
+    """A round of a team's strip in words: 'Round 3 (2027-09-18): away v Otters at Alder Green;
+    break: away again' (a bye: 'Round 3: bye')."""
+    if side == "bye":
+        return f"{title}: bye"
+    text = f"{title}: {side}" + (f" v {opponent}" if opponent else "")
+    text += f" at {place}" if place else ""
+    return text + (f"; {break_note(side)}" if brk else "")
+
+
+def season_warnings_head(count: int) -> str:
+    """The line above the warnings on the command line: 'Season warnings: none', 'Season
+    warnings (3):'."""
+    return "Season warnings: none" if count == 0 else f"Season warnings ({count}):"
+
+
+def teams_summary(teams: int, breaks: int, warnings: int) -> str:
+    """The Teams view's headline: '4 teams, 2 breaks, 3 warnings'."""
+    return (f"{plural(teams, 'team')}, {plural(breaks, 'break')}, "
+            f"{plural(warnings, 'warning')}")
+
+
+SEASON_TOTAL_COLUMNS = (("Home", "Home games"), ("Away", "Away games"),
+                        ("Byes", "Rounds without a game"),
+                        ("Breaks", "Games on the same side as the team's game before (byes "
+                                   "skipped): two home or two away in a row"),
+                        ("Longest run", "Most home games and most away games in a row"),
+                        ("Warnings", "What a family would notice: three in a row at home or "
+                                     "away, two byes in a row, unequal byes, home and away "
+                                     "games more than one apart"))
+NO_SEASON = "No schedule yet: draw one (Ctrl+D) to see each team's season here."
+NO_VENUES = "No schedule yet: draw one (Ctrl+D) to see each venue's rounds by date here."
+
+
+def round_column_tip(title: str) -> str:
+    """The tooltip of a round's column in the Teams strip: its title and the letters."""
+    return f"{title}: H home, A away, B bye; {BREAK_MARK} a break"
+
+
+def team_heading(team: str, totals: str, longest: str) -> str:
+    """Over a team's rounds: 'Wrens: 1 home game, 3 away games, 2 byes; longest runs 1 home,
+    3 away'."""
+    return f"{team}: {totals}; longest runs {longest}"
+
+
+def more_warnings(shown: list[str], total: int) -> str:
+    """The Teams view's warning line: the first warnings, then how many more."""
+    text = f"{WARNING_SIGN} " + f"; {WARNING_SIGN} ".join(shown)
+    extra = total - len(shown)
+    return text + (f" (and {extra} more in the Warnings column)" if extra > 0 else "")
+
+
+COLUMN_TIPS = {  # the tooltips of the columns a team's or venue's rounds are shown in
+    "Round": "The round (a matchday, or a time slot of one day)",
+    "Date": "When the round is played",
+    "Home/Away": "Whether the team plays at home or away, or has a bye",
+    "Opponent": "Who the team plays",
+    "Venue": "Where the game is played",
+    "Pitch": "The pitch at that ground, when there are several",
+    "Break": "A break: the second of two home games, or two away games, in a row",
+}
+
+
+def venue_column_tip(column: str) -> str:
+    """A venue grid's column header tooltip: the round, its date, or a pitch."""
+    return COLUMN_TIPS.get(column, f"What is played on {column} in that round")

@@ -24,6 +24,8 @@ from leaguegrid.gui.import_view import ImportView
 from leaguegrid.gui.notices import APP_NAME, inform, show_dialog, warn
 from leaguegrid.gui.print_flows import PrintFlows
 from leaguegrid.gui.schedule_view import ScheduleView
+from leaguegrid.gui.teams_view import TeamsView
+from leaguegrid.gui.venues_view import VenuesView
 from leaguegrid.gui.whatif_view import WhatIfView
 from leaguegrid.gui.work_flows import WorkFlows
 from leaguegrid.gui.worker import Runner
@@ -79,9 +81,12 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, PrintFlows, QMainWindow):
         self.counts_view = CountsView()
         self.schedule_view = ScheduleView(self.doc)
         self.whatif_view = WhatIfView(self.doc)
+        self.teams_view = TeamsView(self.doc)
+        self.venues_view = VenuesView(self.doc)
         for widget, title in ((self.import_view, "Workbook"), (self.fixtures_view, "Fixtures"),
                               (self.clash_view, "Clash graph"), (self.counts_view, "Counts"),
-                              (self.schedule_view, "Schedule"), (self.whatif_view, "What-if")):
+                              (self.schedule_view, "Schedule"), (self.whatif_view, "What-if"),
+                              (self.teams_view, "Teams"), (self.venues_view, "Venues")):
             self.tabs.addTab(widget, title)
         self.setCentralWidget(self.tabs)
 

@@ -40,3 +40,16 @@ def unassigned_colour(palette: QPalette) -> QColor:
 def conflict_colour(palette: QPalette) -> QColor:
     """The outline for a fixture that breaks a clash or rule where it stands."""
     return QColor.fromHslF(0.0, 0.75, 0.62 if is_dark(palette) else 0.45)
+
+
+SIDE_HUES = {"home": 0.58, "away": 0.08}  # blue and orange: apart for every kind of colour sight
+
+
+def side_colour(side: str, palette: QPalette) -> QColor:
+    """The fill of a round in a team's strip: blue at home, orange away, the palette's own
+    button colour for a bye; readable under the palette's Text colour."""
+    if side not in SIDE_HUES:
+        return unassigned_colour(palette)
+    if is_dark(palette):
+        return QColor.fromHslF(SIDE_HUES[side], 0.50, 0.32)
+    return QColor.fromHslF(SIDE_HUES[side], 0.70, 0.80)
