@@ -68,8 +68,9 @@ class LeftOver:
     lock: QLockFile
 
     def workbook(self) -> str:
-        """The workbook the work was done on (beside the file it names, else its full path)."""
-        return self.work.workbook_path(self.path)
+        """The workbook the work was done on, by its full path (the recovery folder has
+        nothing to do with where workbooks are, so the path relative to it means nothing)."""
+        return self.work.workbook
 
     def discard(self) -> None:
         """Delete the file and give up the claim."""
