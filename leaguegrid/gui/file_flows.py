@@ -252,8 +252,10 @@ class FileFlows:
             if (unsaved or keep.schedule is not None) and self.doc.usable:
                 self._lay_project(keep, path, saved=not unsaved,
                                   text="Keep the edits after reading the workbook again")
-            if notice is not None:
-                self.stage_label.setText(notice(unsaved))
+            if notice is not None:  # said in the status line and above the workbook, which
+                said = notice(unsaved)  # keeps it once the count's news has replaced the first
+                self.stage_label.setText(said)
+                self.import_view.heading.setText(f"{said} {self.import_view.heading.text()}")
 
         self._read(path, mapping, after=lay, accept=accept)
 
