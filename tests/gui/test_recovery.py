@@ -225,3 +225,17 @@ def test_discard_in_the_bar_deletes_the_left_over_work(qtbot, settings, tmp_path
     assert second.left_over == []
     window.recovery_bar.discard_button.click()
     assert not left.exists() and not window.recovery_bar.isVisible()
+
+
+def test_reload_with_unsaved_pins_asks_and_discard_reads_the_workbook_afresh(qtbot, window,
+                                                                           tmp_path):
+    open_copy(qtbot, window, tmp_path)
+    window.pin_fixture(*PIN)
+    wait_idle(qtbot, window)
+    window.act_reload.trigger()
+    answer(qtbot, window, QMessageBox.StandardButton.Cancel, "reading the workbook again")
+    assert window.doc.edits.pins == {PIN[0]: PIN[1]}
+    window.act_reload.trigger()
+    answer(qtbot, window, QMessageBox.StandardButton.Discard, "reading the workbook again")
+    qtbot.waitUntil(lambda: window.doc.edits.pins == {}, timeout=30_000)
+    assert not window.doc.unsaved
