@@ -19,8 +19,6 @@ CAUTION = (
     "schedule against the association's rules (rest between games for juniors, heat, lighting, "
     "travel) and local regulations."
 )
-UNSAVED_QUESTION = ("This league has pins, edits or a schedule that are not saved in a project "
-                    "file. Save them before closing?")
 
 METHODS = {"uniform": "drawn uniformly at random from every valid assignment",
            "search": "found by the rule-aware generator",
@@ -34,6 +32,38 @@ METHODS = {"uniform": "drawn uniformly at random from every valid assignment",
 def plural(n: int, one: str, many: str | None = None) -> str:
     """'1 round', '2 rounds', '3 clashes' (with `many` given): never 'round(s)'."""
     return f"{n} {one if n == 1 else (many or one + 's')}"
+
+
+def unsaved_question(before: str) -> str:
+    """Save / Discard / Cancel's question, `before` what: "closing", "opening another league"."""
+    return ("This league has pins, edits or a schedule that are not saved in a project file. "
+            f"Save them before {before}?")
+
+
+UNSAVED_QUESTION = unsaved_question("closing")
+
+
+def recovery_offer(workbook: str, when: str, more: int = 0) -> str:
+    """The restore banner's sentence for work a window left unsaved when it ended."""
+    others = f" ({plural(more, 'other')} waiting after this one)" if more else ""
+    return (f"LeagueGrid ended without saving the work on {workbook} (last change {when}). "
+            f"Restore brings back its pins, edits and schedule; Discard deletes it{others}.")
+
+
+def reloaded_notice(name: str, kept: bool) -> str:
+    """What the status line says once a workbook that changed on disk has been read again."""
+    if kept:
+        return (f"{name} changed on disk and was read again; your unsaved pins, edits and "
+                "schedule were kept where their fixtures still exist.")
+    return f"{name} changed on disk and was read again."
+
+
+def not_reloaded_notice(name: str, problems: list[str]) -> str:
+    """Why a workbook read again was not put in place of the league holding unsaved edits."""
+    shown = "; ".join(problems[:3]) + ("; …" if len(problems) > 3 else "")
+    return (f"{name} was read again but cannot be used as it is now ({shown}). The league "
+            "read before stays open with your unsaved edits; fix the workbook and it is read "
+            "again, or save your work first.")
 
 
 def is_estimate(value: Any) -> bool:

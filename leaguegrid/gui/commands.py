@@ -1,4 +1,5 @@
-"""Undoable edits: pins, ties, moves in the schedule, waived and added clashes."""
+"""Undoable edits: pins, ties, waived and added clashes, drawn schedules and moves in them,
+and recovered or kept work: every change the coordinator makes is one of these."""
 
 from __future__ import annotations
 
@@ -6,7 +7,8 @@ import networkx as nx
 from PySide6.QtGui import QUndoCommand
 
 from leaguegrid.app import editing
-from leaguegrid.core.model import League, Reason
+from leaguegrid.app.editing import Edits
+from leaguegrid.core.model import League, Reason, Schedule
 from leaguegrid.gui.document import LeagueDocument
 
 _MISSING = object()
@@ -63,7 +65,22 @@ class TieCommand(_PairCommand):
         super().__init__(doc, (first, second), f"Keep {first} together with {second}")
 
 
-class MoveCommand(QUndoCommand):
+class ScheduleCommand(QUndoCommand):
+    """Put another schedule in place of the one shown (a draw, a re-plan); undo brings the one
+    before back."""
+
+    def __init__(self, doc: LeagueDocument, after: Schedule | None, text: str) -> None:
+        super().__init__(text)
+        self.doc, self.before, self.after = doc, doc.schedule, after
+
+    def redo(self) -> None:
+        self.doc.set_schedule(self.after)
+
+    def undo(self) -> None:
+        self.doc.set_schedule(self.before)
+
+
+class MoveCommand(ScheduleCommand):
     """Move a fixture to another round of the chosen schedule (app.editing.move_fixture: the
     schedule after the move is a new one, marked as edited by hand)."""
 
@@ -72,15 +89,31 @@ class MoveCommand(QUndoCommand):
         before = doc.schedule
         assert before is not None
         from_round = before.assignment[label]
-        super().__init__(f"Move {label} from round {from_round} to round {to_round}")
-        self.doc, self.before = doc, before
-        self.after = editing.move_fixture(league, graph, before, label, to_round).schedule
+        after = editing.move_fixture(league, graph, before, label, to_round).schedule
+        super().__init__(doc, after, f"Move {label} from round {from_round} to round {to_round}")
+
+
+class StateCommand(QUndoCommand):
+    """Put edits and a schedule in place together (recovered work, or the work kept when the
+    workbook is read again); undo brings back what was there before."""
+
+    def __init__(self, doc: LeagueDocument, edits: Edits, schedule: Schedule | None,
+                 text: str) -> None:
+        super().__init__(text)
+        self.doc = doc
+        self.before = (doc.edits, doc.schedule)
+        self.after = (edits, schedule)
+
+    def _put(self, state: tuple[Edits, Schedule | None]) -> None:
+        self.doc.edits = state[0]
+        self.doc.set_schedule(state[1])
+        self.doc.changed_edits()
 
     def redo(self) -> None:
-        self.doc.set_schedule(self.after)
+        self._put(self.after)
 
     def undo(self) -> None:
-        self.doc.set_schedule(self.before)
+        self._put(self.before)
 
 
 class WaiveCommand(QUndoCommand):

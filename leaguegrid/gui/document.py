@@ -38,8 +38,7 @@ class LeagueDocument(QObject):
         self.selected: str | None = None
         self.project_path: str | None = None
         self.graph: Any = None  # the working clash graph (networkx), set by the window
-        self.undo = QUndoStack(self)
-        self._schedule_saved = True  # the schedule shown is the one last saved (or none)
+        self.undo = QUndoStack(self)  # every change goes through it (gui.commands)
 
     @property
     def league(self) -> League | None:
@@ -61,7 +60,6 @@ class LeagueDocument(QObject):
         self.schedule = None
         self.selected = None
         self.undo.clear()
-        self._schedule_saved = True
         self.loaded.emit()
 
     def title_name(self) -> str:
@@ -101,19 +99,19 @@ class LeagueDocument(QObject):
                 for other in graph.neighbors(label)}
 
     def set_schedule(self, schedule: Schedule | None) -> None:
+        """Show `schedule` (called by undo commands, and when a project is laid on)."""
         self.schedule = schedule
-        self._schedule_saved = schedule is None
         self.scheduleChanged.emit()
 
     @property
     def unsaved(self) -> bool:
-        """True when edits or a schedule would be lost by closing without saving."""
-        return not self.undo.isClean() or not self._schedule_saved
+        """True when edits or a schedule would be lost by closing without saving: every change
+        is an undo command, so this is the undo stack away from where it was last saved."""
+        return not self.undo.isClean()
 
     def mark_saved(self) -> None:
         """The project file now holds the edits and the schedule."""
         self.undo.setClean()
-        self._schedule_saved = True
 
     def project(self, rounds: int | None) -> Project:
         """What a project file of this document holds."""

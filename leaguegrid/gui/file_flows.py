@@ -3,6 +3,8 @@ matching, recent files, saving projects and exporting calendars, all through lea
 
 from __future__ import annotations
 
+import dataclasses
+from collections.abc import Callable
 from pathlib import Path
 from typing import Any
 
@@ -10,10 +12,12 @@ from PySide6.QtWidgets import QFileDialog
 
 from leaguegrid.app import export, league, project
 from leaguegrid.app.export import ExportFailed, ExportTargets
+from leaguegrid.core import wording
 from leaguegrid.core.wording import plural
+from leaguegrid.gui import commands
 from leaguegrid.gui.export_dialog import ExportDialog
 from leaguegrid.gui.mapping_dialog import MappingDialog, load_mapping, save_mapping
-from leaguegrid.gui.notices import show_dialog
+from leaguegrid.gui.notices import ask_save_discard, show_dialog
 from leaguegrid.gui.worker import Job, call
 
 MAX_RECENT = 8
@@ -30,7 +34,26 @@ class FileFlows:
         if path:
             self.open_path(path)
 
+    def settle_unsaved(self: Any, then: Callable[[], None], question: str | None = None) -> None:
+        """Run `then` at once when nothing is unsaved; otherwise ask Save / Discard / Cancel
+        first (in a box that never blocks) and run it after a save that worked or a Discard."""
+        if not self.doc.unsaved:
+            then()
+            return
+
+        def save() -> None:
+            self.save_project()
+            if not self.doc.unsaved:
+                then()
+
+        ask_save_discard(self, question or wording.unsaved_question("opening another league"),
+                         save, then)
+
     def open_path(self: Any, path: str) -> None:
+        """Open a workbook, a CSV or a project file, asking first when work is unsaved."""
+        self.settle_unsaved(lambda: self._open_now(path))
+
+    def _open_now(self: Any, path: str) -> None:
         """Open a workbook, a CSV or a project file (read in the worker thread)."""
         if path.lower().endswith(project.SUFFIX):
             self.open_project(path)
@@ -39,11 +62,18 @@ class FileFlows:
         self._read(path, load_mapping(self.settings, path))
 
     def reload(self: Any) -> None:
+        """Read the workbook again from scratch (asking first when work is unsaved)."""
         if self.doc.path:
-            self._read(self.doc.path, self.doc.mapping)
+            path, mapping = self.doc.path, self.doc.mapping
+            self.settle_unsaved(lambda: self._read(path, mapping),
+                                wording.unsaved_question("reading the workbook again"))
 
-    def _read(self: Any, path: str, mapping: dict[str, str] | None, after: Any = None) -> None:
+    def _read(self: Any, path: str, mapping: dict[str, str] | None, after: Any = None,
+              accept: Callable[[league.OpenedLeague], bool] | None = None) -> None:
+        """Read `path` in the worker and show it (unless `accept` says no), then call `after`."""
         def done(opened: league.OpenedLeague) -> None:
+            if accept is not None and not accept(opened):
+                return
             if opened.notice and load_mapping(self.settings, path) == mapping:
                 save_mapping(self.settings, path, {})  # remembered, no longer fits: forget it
             self._opened(path, opened.columns, opened)
@@ -102,7 +132,7 @@ class FileFlows:
         def chosen() -> None:
             mapping = dialog.mapping()
             save_mapping(self.settings, path, mapping)
-            self._read(path, mapping)
+            self._read_keeping(path, mapping)
 
         dialog.accepted.connect(chosen)
         show_dialog(dialog)
@@ -175,22 +205,62 @@ class FileFlows:
             workbook = data.workbook_path(path)
 
             def restore() -> None:
-                there = Path(workbook).is_file()
-                warning = self.doc.restore(data, league.sha256_of(workbook) if there else None)
+                self._lay_project(data, workbook, saved=True)
                 self.doc.project_path = path
                 self._remember(path)
-                if data.rounds:
-                    self._set_rounds(data.rounds, user=True)
-                if warning:
-                    self._warn(warning)
-                self.schedule_view.refresh()
-                self._update_enabled()
-                self.doc.undo.setClean()
 
             self._read(workbook, data.mapping or None, after=restore)
 
         work = call(project.try_read_project, path)
         self.runner.start(Job(f"Reading {Path(path).name}", work, read))
+
+    def _lay_project(self: Any, data: project.Project, workbook: str, saved: bool,
+                     text: str = "Restore recovered work") -> None:
+        """Lay a project's edits and schedule onto the league just read from `workbook`: as
+        saved work, or (`saved` false) as an undoable change that leaves the work unsaved."""
+        current = league.sha256_of(workbook) if Path(workbook).is_file() else None
+        if saved:
+            warning = self.doc.restore(data, current)
+        else:
+            restored = project.restore(data, self.doc.league, current)
+            self.doc.undo.push(commands.StateCommand(self.doc, restored.edits,
+                                                     restored.schedule, text))
+            warning = restored.warning
+        if data.rounds:
+            self._set_rounds(data.rounds, user=True)
+        if warning:
+            self._warn(warning)
+        self.schedule_view.refresh()
+        self.clash_view.colour_by(self.doc.schedule)
+        self._update_enabled()
+
+    def _read_keeping(self: Any, path: str, mapping: dict[str, str] | None,
+                      notice: Callable[[bool], str] | None = None) -> None:
+        """Read the open workbook again (it changed, or its matching did) keeping the pins,
+        edits and schedule where their fixtures still exist. A read that cannot be used does
+        not replace a league holding unsaved work; `notice(kept)` is the status line after."""
+        keep = dataclasses.replace(self.doc.project(self.rounds_box.value()), sha256=None)
+        keep.saved_schedule = project.to_json(keep, path)["schedule"]
+        unsaved, project_path = self.doc.unsaved, self.doc.project_path
+        name = Path(path).name
+
+        def accept(opened: league.OpenedLeague) -> bool:
+            if opened.result.ok or not unsaved:
+                return True
+            self._warn(wording.not_reloaded_notice(name, [str(p) for p in opened.result.errors]))
+            return False
+
+        def lay() -> None:
+            self.doc.project_path = project_path
+            if (unsaved or keep.schedule is not None) and self.doc.usable:
+                self._lay_project(keep, path, saved=not unsaved,
+                                  text="Keep the edits after reading the workbook again")
+            if notice is not None:  # said in the status line and above the workbook, which
+                said = notice(unsaved)  # keeps it once the count's news has replaced the first
+                self.stage_label.setText(said)
+                self.import_view.heading.setText(f"{said} {self.import_view.heading.text()}")
+
+        self._read(path, mapping, after=lay, accept=accept)
 
     # export -----------------------------------------------------------------------------
     def export_dialog(self: Any) -> None:

@@ -8,10 +8,11 @@ from typing import Any
 
 from PySide6.QtCore import QByteArray, QSettings, QTimer, Signal
 from PySide6.QtGui import QCloseEvent, QDragEnterEvent, QDropEvent
-from PySide6.QtWidgets import QMainWindow, QMessageBox, QTabWidget, QWidget
+from PySide6.QtWidgets import QMainWindow, QTabWidget, QWidget
 
 from leaguegrid import __version__
-from leaguegrid.core.wording import CAUTION, UNSAVED_QUESTION, failure_sentence
+from leaguegrid.core import wording
+from leaguegrid.core.wording import CAUTION, failure_sentence
 from leaguegrid.gui import icons, procworker, window_actions
 from leaguegrid.gui.clash_view import ClashGraphView
 from leaguegrid.gui.counts_view import CountsView
@@ -21,19 +22,22 @@ from leaguegrid.gui.file_flows import FileFlows
 from leaguegrid.gui.fixtures_view import FixturesView
 from leaguegrid.gui.help_view import GuideWindow
 from leaguegrid.gui.import_view import ImportView
-from leaguegrid.gui.notices import APP_NAME, inform, show_dialog, warn
+from leaguegrid.gui.notices import APP_NAME, inform, warn
 from leaguegrid.gui.print_flows import PrintFlows
+from leaguegrid.gui.recovery_flows import RecoveryFlows
 from leaguegrid.gui.schedule_view import ScheduleView
 from leaguegrid.gui.teams_view import TeamsView
 from leaguegrid.gui.venues_view import VenuesView
 from leaguegrid.gui.whatif_view import WhatIfView
 from leaguegrid.gui.work_flows import WorkFlows
+from leaguegrid.gui.workbook_flows import WorkbookFlows
 from leaguegrid.gui.worker import Runner
 
 OPENABLE = (".xlsx", ".csv", ".leaguegrid")
 
 
-class MainWindow(FileFlows, WorkFlows, EditFlows, PrintFlows, QMainWindow):
+class MainWindow(FileFlows, WorkbookFlows, RecoveryFlows, WorkFlows, EditFlows, PrintFlows,
+                 QMainWindow):
     """One league at a time; every long computation runs in the Runner's worker."""
 
     countsReady = Signal(object)
@@ -62,6 +66,8 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, PrintFlows, QMainWindow):
         window_actions.build_status(self)
         self._fill_recent()
         self._connect()
+        self._start_recovery()
+        self._start_watching()
         self._recount = QTimer(self)
         self._recount.setSingleShot(True)
         self._recount.setInterval(300)
@@ -124,8 +130,9 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, PrintFlows, QMainWindow):
     def closeEvent(self, event: QCloseEvent) -> None:  # noqa: N802
         if self.doc.unsaved and not self._discarding:
             event.ignore()  # asked first, in a box that does not block the window
-            self._ask_to_save()
+            self.settle_unsaved(self._close_now, wording.unsaved_question("closing"))
             return
+        self._end_recovery()
         self.settings.setValue("window/geometry", self.saveGeometry())
         self.settings.setValue("window/state", self.saveState())
         self.settings.setValue("window/tab", self.tabs.currentIndex())
@@ -134,25 +141,10 @@ class MainWindow(FileFlows, WorkFlows, EditFlows, PrintFlows, QMainWindow):
         self.runner.wait()
         super().closeEvent(event)
 
-    def _ask_to_save(self) -> None:
-        """Save / Discard / Cancel for edits or a schedule not yet saved, then close."""
-        box = QMessageBox(QMessageBox.Icon.Question, APP_NAME, UNSAVED_QUESTION,
-                          QMessageBox.StandardButton.Save | QMessageBox.StandardButton.Discard
-                          | QMessageBox.StandardButton.Cancel, self)
-        box.setDefaultButton(QMessageBox.StandardButton.Save)
-
-        def answered(_code: int) -> None:
-            choice = box.standardButton(box.clickedButton())
-            if choice == QMessageBox.StandardButton.Save:
-                self.save_project()
-                if not self.doc.unsaved:
-                    self.close()
-            elif choice == QMessageBox.StandardButton.Discard:
-                self._discarding = True
-                self.close()
-
-        box.finished.connect(answered)
-        show_dialog(box)
+    def _close_now(self) -> None:
+        """Close without asking again (the work was saved or the coordinator discarded it)."""
+        self._discarding = True
+        self.close()
 
     def _clean_changed(self, _clean: bool) -> None:
         self._update_title()

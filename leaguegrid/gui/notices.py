@@ -3,6 +3,8 @@ exec()), so work and the event loop go on while it is shown; what it answers com
 
 from __future__ import annotations
 
+from collections.abc import Callable
+
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QDialog, QMessageBox, QWidget
 
@@ -32,5 +34,25 @@ def inform(parent: QWidget, title: str, rich_text: str) -> QMessageBox:
     box = QMessageBox(QMessageBox.Icon.Information, title, rich_text,
                       QMessageBox.StandardButton.Ok, parent)
     box.setTextFormat(Qt.TextFormat.RichText)
+    show_dialog(box)
+    return box
+
+
+def ask_save_discard(parent: QWidget, text: str, on_save: Callable[[], None],
+                     on_discard: Callable[[], None]) -> QMessageBox:
+    """Save / Discard / Cancel over `parent` (Save the default); Cancel does nothing."""
+    buttons = QMessageBox.StandardButton
+    box = QMessageBox(QMessageBox.Icon.Question, APP_NAME, text,
+                      buttons.Save | buttons.Discard | buttons.Cancel, parent)
+    box.setDefaultButton(buttons.Save)
+
+    def answered(_code: int) -> None:
+        choice = box.standardButton(box.clickedButton())
+        if choice == buttons.Save:
+            on_save()
+        elif choice == buttons.Discard:
+            on_discard()
+
+    box.finished.connect(answered)
     show_dialog(box)
     return box

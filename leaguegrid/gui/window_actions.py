@@ -41,6 +41,9 @@ def build_actions(w: Any) -> None:
     sp = QStyle.StandardPixmap
     key = QKeySequence.StandardKey
     specs = (  # attribute, text, slot, shortcut, tip, icon
+        ("act_new", "&New league…", w.new_league, key.New,
+         "Write a blank league workbook to fill in, open it in your spreadsheet program and "
+         "here", std(sp.SP_FileIcon)),
         ("act_open", "&Open…", w.open_dialog, key.Open,
          "Open a league workbook, CSV or project", std(sp.SP_DialogOpenButton)),
         ("act_reload", "&Reload workbook", w.reload, "F5",
@@ -113,6 +116,7 @@ def build_menus(w: Any) -> None:
     """File, Edit, League, View and Help menus of the window `w`."""
     bar = w.menuBar()
     file_menu = bar.addMenu("&File")
+    file_menu.addAction(w.act_new)
     file_menu.addAction(w.act_open)
     w.recent_menu = file_menu.addMenu("Open &recent")
     w.demo_menu = file_menu.addMenu("Open a &demo league")

@@ -16,7 +16,7 @@ from leaguegrid.app import counting, league, planning
 from leaguegrid.app import whatif as what
 from leaguegrid.app.defaults import BEST_OF, COUNT_BUDGET, PLAN_BUDGET, WHATIF_BUDGET
 from leaguegrid.core import wording
-from leaguegrid.gui import procworker
+from leaguegrid.gui import commands, procworker
 from leaguegrid.gui.notices import inform
 from leaguegrid.gui.worker import Job, JobFn, call
 
@@ -149,7 +149,7 @@ class WorkFlows:
         self.runner.start(Job("Re-planning", work, self._replan_done, budget=PLAN_BUDGET))
 
     def _replan_done(self: Any, done: planning.Replan) -> None:
-        self._schedule_done(done.outcome)
+        self._schedule_done(done.outcome, "Re-plan from an earlier schedule")
         if done.outcome.schedule is None:
             return
         moved = wording.plural(len(done.moves), "fixture")
@@ -159,11 +159,14 @@ class WorkFlows:
         inform(self, "Re-planned", f"{moved} moved." + (
             "<p>" + "</p><p>".join(lines) + "</p>" if lines else ""))
 
-    def _schedule_done(self: Any, outcome: planning.PlanOutcome) -> None:
+    def _schedule_done(self: Any, outcome: planning.PlanOutcome,
+                       text: str = "Draw a schedule") -> None:
+        """Show a drawn (or re-planned) schedule, undoably; a failed draw keeps the one shown."""
         schedule = outcome.schedule
-        self.doc.set_schedule(schedule)
+        if schedule is not None:
+            self.doc.undo.push(commands.ScheduleCommand(self.doc, schedule, text))
         self.schedule_view.refresh(outcome.message)
-        self.clash_view.colour_by(schedule)
+        self.clash_view.colour_by(self.doc.schedule)
         if schedule is not None:
             self.tabs.setCurrentWidget(self.schedule_view)
             rounds = wording.plural(schedule.rounds, "round")

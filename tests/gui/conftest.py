@@ -10,8 +10,11 @@ from PySide6.QtCore import QSettings  # noqa: E402
 
 @pytest.fixture
 def settings(tmp_path):
-    """Settings in a file of the test's own, so no test sees another's recent files."""
-    return QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
+    """Settings in a file of the test's own, so no test sees another's recent files or
+    recovery files (kept in the test's own folder)."""
+    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
+    settings.setValue("recoveryFolder", str(tmp_path / "recovery"))
+    return settings
 
 
 @pytest.fixture
