@@ -10,6 +10,7 @@ from pathlib import Path
 
 import networkx as nx
 
+from leaguegrid import engine
 from leaguegrid.core.dated import DatedSchedule, club_teams, team_names, venue_names
 from leaguegrid.core.model import League, Schedule
 from leaguegrid.core.wording import breaks_text
@@ -60,10 +61,13 @@ def summary_for(league: League, graph: nx.Graph, schedule: Schedule,
 def export_schedule(league: League, graph: nx.Graph, schedule: Schedule,
                     targets: ExportTargets, min_rounds: int | None = None,
                     now: dt.datetime | None = None,
-                    inputs: Sequence[Path | None] = ()) -> ExportOutcome:
+                    inputs: Sequence[Path | None] = (),
+                    hooks: engine.Hooks | None = None) -> ExportOutcome:
     """Write every target asked for, each through a temporary file moved into place; raises
     ExportFailed naming the problem (files written before it stay written). No target may be
-    the league's file nor one of `inputs` (a project file, a previous schedule)."""
+    the league's file nor one of `inputs` (a project file, a previous schedule). `hooks`
+    hears which file is being written and may cancel between files."""
+    hooks = hooks or engine.Hooks()
     out = ExportOutcome()
     try:
         for target in (targets.xlsx, targets.csv):
@@ -71,13 +75,19 @@ def export_schedule(league: League, graph: nx.Graph, schedule: Schedule,
                 refuse_overwriting_input(target, inputs)
         dated = date_schedule(league, schedule, now)
         if targets.xlsx is not None:
+            hooks.check()
+            hooks.report(0.1, f"Writing {Path(targets.xlsx).name}")
             write_calendar_xlsx(targets.xlsx, dated,
                                 summary_for(league, graph, schedule, min_rounds))
             out.written.append(Path(targets.xlsx))
         if targets.csv is not None:
+            hooks.check()
+            hooks.report(0.5, f"Writing {Path(targets.csv).name}")
             write_schedule_csv(targets.csv, dated)
             out.written.append(Path(targets.csv))
         if targets.ics is not None:
+            hooks.check()
+            hooks.report(0.6, "Writing the calendars")
             out.written += ics.write_ics_files(targets.ics, dated)
     except (ExportError, DatesError, OSError) as err:
         raise ExportFailed(failure_text(err), out.written) from err

@@ -20,6 +20,8 @@ from leaguegrid.gui.mapping_dialog import MappingDialog, load_mapping, save_mapp
 from leaguegrid.gui.notices import ask_save_discard, show_dialog
 from leaguegrid.gui.worker import Job, call
 
+EXPORTING = "Exporting"  # the export job's name, as the status line shows it
+
 MAX_RECENT = 8
 OPEN_FILTER = ("League workbooks and projects (*.xlsx *.csv *.leaguegrid);;"
                "Workbooks (*.xlsx);;CSV files (*.csv);;LeagueGrid projects (*.leaguegrid)")
@@ -271,22 +273,32 @@ class FileFlows:
         dialog.accepted.connect(lambda: self.export(dialog.choices()))
         show_dialog(dialog)
 
-    def export(self: Any, choices: dict[str, str | None]) -> list[str]:
-        """Write what `choices` names (xlsx, csv: file paths; ics: a folder); returns paths."""
+    def export(self: Any, choices: dict[str, str | None]) -> None:
+        """Write what `choices` names (xlsx, csv: file paths; ics: a folder) as a job of the
+        runner, after any count or draw running (progress and Cancel as for them); the paths
+        written end in `last_export`."""
         lg, graph = self.working()
         schedule = self.doc.schedule
         if lg is None or schedule is None:
-            return []
+            return
         targets = ExportTargets(**{kind: Path(choices[kind]) for kind in ("xlsx", "csv", "ics")
                                    if choices.get(kind)})
         fewest = self.report.min_rounds if self.report is not None else None
-        try:
-            outcome = export.export_schedule(lg, graph, schedule, targets, fewest)
-        except ExportFailed as err:  # it says why, and leaves no half-written file
-            self._warn(str(err), "Export failed.")
-            self.stage_label.setText(f"Export failed: {err}")
-            return [str(p) for p in err.written]
+
+        def work(hooks: Any) -> export.ExportOutcome | ExportFailed:
+            try:
+                return export.export_schedule(lg, graph, schedule, targets, fewest,
+                                              hooks=hooks)
+            except ExportFailed as err:  # it says why, and leaves no half-written file
+                return err
+
+        self._start_when_free(Job(EXPORTING, work, self._exported))
+
+    def _exported(self: Any, outcome: export.ExportOutcome | ExportFailed) -> None:
         written = [str(p) for p in outcome.written]
         self.last_export = written
+        if isinstance(outcome, ExportFailed):
+            self._warn(str(outcome), "Export failed.")
+            self.stage_label.setText(f"Export failed: {outcome}")
+            return
         self.stage_label.setText(f"Exported {plural(len(written), 'file')}.")
-        return written

@@ -272,7 +272,10 @@ def test_export_dialog_shows_what_is_written_and_keeps_reasons_private(
     assert "team-Herons.ics" in preview
     assert "one row per fixture (6 rows)" in preview
     assert "clash reasons" in PRIVACY.lower()
-    written = window.export(dialog.choices())
+    window.export(dialog.choices())  # a job of the runner, like counting and drawing
+    assert window.runner.busy and window.runner.current_name == "Exporting"
+    wait_idle(qtbot, window)
+    written = window.last_export
     assert str(tmp_path / "out.xlsx") in written and str(tmp_path / "out.csv") in written
     calendars = sorted(p.name for p in (tmp_path / "ics").iterdir())
     assert "team-Herons.ics" in calendars

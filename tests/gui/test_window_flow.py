@@ -96,6 +96,7 @@ def test_demo_league_counts_draw_and_export(qtbot, window, settings, monkeypatch
 
     target = tmp_path / "calendar.xlsx"
     export_through_action(qtbot, window, target)
+    wait_idle(qtbot, window)
     assert window.last_export == [str(target)]
     sheet = load_workbook(target, read_only=True)["Calendar"]
     rows = list(sheet.iter_rows(values_only=True))
