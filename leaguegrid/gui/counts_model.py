@@ -59,8 +59,8 @@ class CountsModel(ReadOnlyTable):
         if role == Role.ToolTipRole:
             if column:
                 return wording.full_text(value)
-            return f"{value} rounds: the fewest that can work" if self.fewest(row) \
-                else f"{value} rounds"
+            rounds = wording.plural(value, "round")
+            return f"{rounds}: the fewest that can work" if self.fewest(row) else rounds
         if role == Role.TextAlignmentRole:
             return RIGHT
         if role == Role.FontRole and column == 0 and self.fewest(row):

@@ -291,7 +291,8 @@ def _fixed_contradictions(
             p = pins[node]
             source = next(lab for lab in labs if lab in fixed_round)
             if p > rounds:
-                out.append(f"{source} is {fixed[source]}, but there are only {rounds} rounds")
+                out.append(f"{source} is {fixed[source]}, but there are only "
+                           f"{plural(rounds, 'round')}")
                 continue
             for lab in labs:
                 if p in blocks.get(lab, {}):

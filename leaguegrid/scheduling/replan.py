@@ -18,6 +18,7 @@ import networkx as nx
 
 from leaguegrid import engine
 from leaguegrid.core.model import League, Schedule
+from leaguegrid.core.wording import plural
 from leaguegrid.scheduling.constraints import build_model
 from leaguegrid.scheduling.draw import PlanResult
 from leaguegrid.scheduling.optimise import fewer_breaks
@@ -59,5 +60,5 @@ def keep_previous(league: League, graph: nx.Graph, rounds: int, previous: dict[s
             rules_counted=list(model.rules_counted),
             rules_generator=list(model.rules_generator),
             notes=[f"re-planned from the previous schedule: {len(moves)} of "
-                   f"{len(labels)} fixtures moved", *model.notes])
+                   f"{plural(len(labels), 'fixture')} moved", *model.notes])
     return Replanned(result, moves)
