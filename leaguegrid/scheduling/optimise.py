@@ -9,6 +9,9 @@ do not rise and now and then when they do (simulated annealing), for a fixed num
 the same league and seed give the same schedule on any machine and under any load. A budget
 or Cancel only ends the search early, with the best schedule so far. The clubs' requests
 (Requests sheet) come first: an unmet request weighs as much as one break per team, and one.
+Among schedules with as few breaks, return legs further apart are better (legs_close): a pair's
+two meetings aim for half the season between them, as a mirrored season has; Leg gap and
+Return half, when set, are hard rules on top.
 """
 
 from __future__ import annotations
@@ -22,7 +25,7 @@ from leaguegrid.core.model import League
 from leaguegrid.scheduling.breaks import BreakCount, break_lower_bound, count_breaks
 from leaguegrid.scheduling.constraints import CountingModel
 from leaguegrid.scheduling.requests import unmet_requests
-from leaguegrid.scheduling.rules import check_generator, round_robins
+from leaguegrid.scheduling.rules import check_generator, leg_pairs, round_robins
 
 STEPS = 4000  # local-search steps (each one Kempe-chain move tried)
 CHECK_EVERY = 64  # steps between budget and cancel checks
@@ -97,6 +100,15 @@ def timetable_start(league: League, rounds: int) -> dict[str, int] | None:
     return out
 
 
+def legs_close(pairs: list[tuple[str, str]], assignment: dict[str, int], rounds: int) -> int:
+    """How far the return legs fall short of half the season after their first meetings:
+    the sum over pairs of max(0, rounds // 2 - the rounds between them); 0 when every pair
+    is at least half a season apart."""
+    aim = rounds // 2
+    return sum(max(0, aim - abs(assignment[b] - assignment[a])) for a, b in pairs
+               if a in assignment and b in assignment)
+
+
 def holds(model: CountingModel, assignment: dict[str, int]) -> bool:
     """True when a complete schedule keeps every counted and generator-only rule."""
     node_round: dict[str, int] = {}
@@ -131,8 +143,12 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
     def shifted(assignment: dict[str, int]) -> int:
         return 0 if keep is None else sum(keep.get(lab) != r for lab, r in assignment.items())
 
+    pairs = leg_pairs(league)
+    # legs apart come after breaks: all of it weighs less than one break
+    apart = 1.0 / (len(pairs) * (rounds // 2) + 1)
     best_penalty = len(unmet_requests(league, current)) + moved_weight * shifted(current)
-    cost = best_breaks.total + weight * best_penalty
+    best_close = legs_close(pairs, current, rounds)
+    cost = best_breaks.total + weight * best_penalty + apart * best_close
     rng = random.Random(f"{seed}:breaks")
     nodes = sorted(model.graph.nodes)
     members = {v: list(model.members[v]) for v in nodes}
@@ -142,7 +158,8 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
               if rules.mirrored else {})
     half = -(-rounds // 2)
     for step in range(steps):
-        if bound is not None and best_breaks.total <= bound and not best_penalty and not keep:
+        if (bound is not None and best_breaks.total <= bound and not best_penalty and not keep
+                and not best_close):
             break
         if hooks is not None and step % CHECK_EVERY == 0:
             try:
@@ -161,12 +178,13 @@ def fewer_breaks(model: CountingModel, start: dict[str, int], seed: int,
             continue
         counted = count_breaks(league, trial)
         penalty = len(unmet_requests(league, trial)) + moved_weight * shifted(trial)
-        new = counted.total + weight * penalty
+        close = legs_close(pairs, trial, rounds)
+        new = counted.total + weight * penalty + apart * close
         heat = 2.0 * (1 - step / steps) + 0.05
         if new <= cost or rng.random() < math.exp((cost - new) / heat):
             current, cost = trial, new
-            if (penalty, counted.total) < (best_penalty, best_breaks.total):
-                best, best_breaks, best_penalty = trial, counted, penalty
+            if (penalty, counted.total, close) < (best_penalty, best_breaks.total, best_close):
+                best, best_breaks, best_penalty, best_close = trial, counted, penalty, close
     return Optimised(best, best_breaks, bound, done, stopped)
 
 

@@ -17,7 +17,8 @@ from leaguegrid.core.model import Fixture, League
 from leaguegrid.io.read.league_reader import load_league
 from leaguegrid.scheduling.constraints import build_model
 from leaguegrid.scheduling.draw import plan
-from leaguegrid.scheduling.optimise import fewer_breaks, timetable_start
+from leaguegrid.scheduling.optimise import fewer_breaks, legs_close, timetable_start
+from leaguegrid.scheduling.rules import leg_pairs
 
 
 def checked_breaks(league: League, assignment: dict[str, int], rounds: int) -> int:
@@ -110,6 +111,23 @@ def test_return_half_reaches_2n_minus_4(tmp_path, n):
     assert max(first.values()) <= n - 1 < min(
         got.assignment[f.label] for f in league.fixtures if f.leg == 2)
     assert got.optimal
+
+
+@pytest.mark.parametrize("n", [6])  # 4 and 8 teams: none closer found at the fewest breaks
+def test_return_legs_move_apart_without_costing_a_break(tmp_path, n):
+    """Issue 11: after the fewest breaks, return legs apart. With Return half each half is a
+    single round robin (de Werra 1981: n - 2 breaks each); among such schedules the search
+    brings the legs closer to half a season apart than the generated timetable has them."""
+    league = teams_league(tmp_path, n, legs=2, return_half=True)
+    k = 2 * (n - 1)
+    pairs = leg_pairs(league)
+    start = timetable_start(league, k)
+    got = optimised(league, k)
+    assert got.breaks.total == 2 * n - 4 == checked_breaks(league, got.assignment, k)
+    assert legs_close(pairs, got.assignment, k) < legs_close(pairs, start, k)
+    # legs_close by hand: how far short of k // 2 rounds apart the pairs are, summed
+    assert legs_close(pairs, got.assignment, k) == sum(
+        max(0, k // 2 - abs(got.assignment[b] - got.assignment[a])) for a, b in pairs)
 
 
 def test_home_games_balanced_within_one(tmp_path):
