@@ -6,10 +6,13 @@ This module chooses between the window and the command line, so neither imports 
 from __future__ import annotations
 
 import sys
+import time
 from collections.abc import Sequence
 from pathlib import Path
 
 from leaguegrid.cli.main import COMMANDS
+
+STARTED = time.monotonic()  # a command's --budget counts from here: the process's start
 
 
 def wants_window(argv: Sequence[str]) -> bool:
@@ -49,7 +52,7 @@ def main(argv: Sequence[str] | None = None) -> int:
         return engine_process(args[1:])
     if wants_window(args):
         return open_window(Path(args[0]) if args else None)
-    return command_line(args)
+    return command_line(args, started=STARTED)
 
 
 if __name__ == "__main__":

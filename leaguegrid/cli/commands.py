@@ -60,6 +60,14 @@ def _check_rounds(opened: league.OpenedLeague, rounds: int) -> None:
         raise UsageError(f"--rounds: {err}") from err
 
 
+def _whole_command(args: argparse.Namespace) -> engine.Hooks:
+    """Hooks whose budget is the command's whole --budget, counted from the process's start."""
+    spent = time.monotonic() - args.started
+    hooks = engine.Hooks(budget=max(args.budget - spent, 0.0))
+    hooks.allowed = args.budget
+    return hooks
+
+
 def cmd_check(args: argparse.Namespace) -> int:
     opened, damaged = _read(args)
     if opened is None:
@@ -69,6 +77,7 @@ def cmd_check(args: argparse.Namespace) -> int:
 
 
 def cmd_count(args: argparse.Namespace) -> int:
+    hooks = _whole_command(args)
     opened = _open(args)
     if opened is None:
         return INPUT_PROBLEMS
@@ -77,8 +86,7 @@ def cmd_count(args: argparse.Namespace) -> int:
         first, last = args.rounds
         _check_rounds(opened, last)
         rounds = list(range(first, last + 1))
-    report = counting.count_report(opened.league, opened.graph, rounds=rounds,
-                                   hooks=engine.Hooks(budget=args.budget))
+    report = counting.count_report(opened.league, opened.graph, rounds=rounds, hooks=hooks)
     render.print_counts(report, opened.league, sys.stdout, as_json=args.json)
     return OK if report.complete else STOPPED
 
