@@ -9,13 +9,13 @@ one leaf of the tree. The most-constrained rule makes dead ends rare. The mean o
 draws is the value. Such weights are products of many factors, so they are strongly skewed:
 the usual mean +/- 1.96 standard errors is too narrow (a sample rarely holds the rare heavy
 weights), and misses almost always fall below the truth. The interval is therefore the union
-of that one (its low end only when above 1) and the delta-lognormal interval for the mean of zero-inflated positive data
-(log weights treated as normal, a share of zeros; the modified Cox interval of X.-H. Zhou and
-S. Gao, "Confidence intervals for the log-normal mean", Statistics in Medicine 16 (1997),
-extended to zeros by L. Tian, "Inferences on the mean of zero-inflated lognormal data",
-Statistics in Medicine 24 (2005)). Its coverage is measured in benchmarks/coverage.py. The
-high end never exceeds the proven bound (product of each fixture's allowed rounds); with no
-valid draw it is that bound and the low end is 0.
+of that one (its low end only when above 1) and the delta-lognormal interval for the mean
+of zero-inflated positive data (log weights treated as normal, with a share of zeros): the
+modified Cox interval of X.-H. Zhou and S. Gao, "Confidence intervals for the log-normal
+mean", Statistics in Medicine 16 (1997), extended to zeros by L. Tian, "Inferences on the
+mean of zero-inflated lognormal data", Statistics in Medicine 24 (2005). Its coverage is
+measured by benchmarks/coverage.py. The high end never exceeds the proven bound (product of
+each fixture's allowed rounds); with no valid draw it is that bound and the low end is 0.
 
 The same draws also estimate the assignments that use every round: a draw's weight counts
 towards it only when its leaf uses all K rounds (the indicator is a function of the leaf,
