@@ -12,7 +12,7 @@ from pathlib import Path
 
 from leaguegrid.cli.main import COMMANDS
 
-STARTED = time.monotonic()  # a command's --budget counts from here: the process's start
+STARTED = time.monotonic()  # the process's start, from which its own command's --budget counts
 
 
 def wants_window(argv: Sequence[str]) -> bool:
@@ -52,7 +52,8 @@ def main(argv: Sequence[str] | None = None) -> int:
         return engine_process(args[1:])
     if wants_window(args):
         return open_window(Path(args[0]) if args else None)
-    return command_line(args, started=STARTED)
+    # the process's own command line (argv None) counts its budget from the process's start
+    return command_line(args, started=STARTED if argv is None else None)
 
 
 if __name__ == "__main__":
