@@ -14,8 +14,9 @@ of zero-inflated positive data (log weights treated as normal, with a share of z
 modified Cox interval of X.-H. Zhou and S. Gao, "Confidence intervals for the log-normal
 mean", Statistics in Medicine 16 (1997), extended to zeros by L. Tian, "Inferences on the
 mean of zero-inflated lognormal data", Statistics in Medicine 24 (2005). Its coverage is
-measured by benchmarks/coverage.py. The high end never exceeds the proven bound (product of
-each fixture's allowed rounds); with no valid draw it is that bound and the low end is 0.
+measured over graphs with known counts, outside the package. The high end never exceeds the
+proven bound (product of each fixture's allowed rounds); with no valid draw it is that bound
+and the low end is 0.
 
 The same draws also estimate the assignments that use every round: a draw's weight counts
 towards it only when its leaf uses all K rounds (the indicator is a function of the leaf,

@@ -159,7 +159,10 @@ def estimate_draws(
     back = Background("sis", g, [], (domains, rounds, 1, half), hooks.remaining())
     try:
         weights, full = sis_draws(g, domains, rounds, hooks, random.Random(0), draws - half)
-        more, more_full = back.result(hooks)
+        try:
+            more, more_full = back.result(hooks)
+        except BudgetExceeded:  # the second process is late: this process's draws suffice
+            more, more_full = [], []
     finally:
         back.close()
     return weights + more, full + more_full
