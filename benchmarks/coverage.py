@@ -6,7 +6,9 @@ is known (published or computed exactly by the engine), under relabellings and s
 For each graph, K and labelling, the sampler's draws (engine.estimate.sis_draws, the draws
 `count` uses) give an estimate of the assignments and of those using every round, and the
 groupings as every-round-used / K!; a row says in how many of the runs the interval held the
-exact value, how many misses fell below and above, and the median high / low ratio.
+exact value, how many misses fell below and above, and the median high / low ratio; the
+column `normal` says how often the plain mean +/- 1.96 standard errors (the interval used
+before) held it.
 """
 
 from __future__ import annotations
@@ -24,7 +26,7 @@ from benchmarks.bench import DEFAULT_CASES
 from benchmarks.case_leagues import named_graph
 from leaguegrid import engine
 from leaguegrid.engine.chromatic_number import domains_for
-from leaguegrid.engine.estimate import sis_draws, summarise
+from leaguegrid.engine.estimate import _normal_interval, sis_draws, summarise
 from leaguegrid.engine.graph import from_networkx
 
 # (case, K, published value or None, source): published values are checked before use.
@@ -106,8 +108,9 @@ def relabelled(G: nx.Graph, seed: int) -> nx.Graph:
     return H
 
 
-def one_run(G: nx.Graph, k: int, draws: int, seed: int) -> tuple[engine.Estimate, ...]:
-    """The three estimates of one run: assignments, every round used, groupings."""
+def one_run(G: nx.Graph, k: int, draws: int, seed: int) -> tuple[list, list]:
+    """The three estimates of one run (assignments, every round used, groupings), and the
+    plain normal intervals (low, high) of the same three."""
     g, _ = from_networkx(G)
     doms = domains_for(g.n, k, {}, {})
     weights, full = sis_draws(g, doms, k, engine.Hooks(), random.Random(seed), draws)
@@ -115,7 +118,9 @@ def one_run(G: nx.Graph, k: int, draws: int, seed: int) -> tuple[engine.Estimate
     f = math.factorial(k)
     groups = engine.Estimate(every.value // f, -(-every.low // f), -(-every.high // f),
                              every.method, every.samples, every.found)
-    return est, every, groups
+    plain = [_normal_interval(weights), _normal_interval(full)]
+    plain.append((-(-plain[1][0] // f), -(-plain[1][1] // f)))
+    return [est, every, groups], plain
 
 
 def main(argv: list[str] | None = None) -> int:
@@ -128,9 +133,9 @@ def main(argv: list[str] | None = None) -> int:
     args = ap.parse_args(argv)
     wanted = [c for c in CASES if not args.cases or c[0] in args.cases]
     quantities = ("assignments", "every round used", "groupings")
-    totals = {(q, d): [0, 0, 0] for q in quantities for d in args.draws}  # held, below, above
+    totals = {(q, d): [0, 0, 0, 0] for q in quantities for d in args.draws}
     print(f"{'case':<14} {'K':>2} {'draws':>5} {'quantity':<17} {'held':>5} {'below':>5} "
-          f"{'above':>5} {'high/low':>9} {'s':>6}")
+          f"{'above':>5} {'high/low':>9} {'normal':>6} {'s':>6}")
     for name, k, published, source in wanted:
         G = graph(name, args.cases_file)
         exact = engine.count_assignments(G, k)
@@ -139,29 +144,31 @@ def main(argv: list[str] | None = None) -> int:
         every = engine.count_all_rounds_used(G, k)
         truth = (exact, every, every // math.factorial(k))
         for draws in args.draws:
-            rows = {q: [0, 0, 0, []] for q in quantities}
+            rows = {q: [0, 0, 0, [], 0] for q in quantities}
             started = time.perf_counter()
             for lab in range(args.labellings):
                 H = relabelled(G, lab)
-                for q, est, true in zip(quantities, one_run(H, k, draws, 1000 + lab), truth,
-                                        strict=True):
+                ests, plain = one_run(H, k, draws, 1000 + lab)
+                for q, est, (lo, hi), true in zip(quantities, ests, plain, truth, strict=True):
                     r = rows[q]
                     r[0 if est.low <= true <= est.high else (1 if est.high < true else 2)] += 1
+                    r[4] += lo <= true <= hi
                     if est.low > 0:
                         r[3].append(est.high / est.low)
             seconds = time.perf_counter() - started
             for q in quantities:
-                held, below, above, ratios = rows[q]
-                for i, x in enumerate((held, below, above)):
+                held, below, above, ratios, normal = rows[q]
+                for i, x in enumerate((held, below, above, normal)):
                     totals[(q, draws)][i] += x
                 ratio = f"{statistics.median(ratios):.2f}" if ratios else "-"
                 print(f"{name:<14} {k:>2} {draws:>5} {q:<17} {held:>5} {below:>5} {above:>5} "
-                      f"{ratio:>9} {seconds:>6.1f}", flush=True)
+                      f"{ratio:>9} {normal:>6} {seconds:>6.1f}", flush=True)
     print()
-    for (q, draws), (held, below, above) in totals.items():
+    for (q, draws), (held, below, above, normal) in totals.items():
         runs = held + below + above
         print(f"all cases, {draws} draws, {q}: held {held} of {runs} "
-              f"({100 * held / max(runs, 1):.1f}%), below {below}, above {above}")
+              f"({100 * held / max(runs, 1):.1f}%), below {below}, above {above}; "
+              f"normal interval held {normal} ({100 * normal / max(runs, 1):.1f}%)")
     return 0
 
 
