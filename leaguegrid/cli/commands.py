@@ -60,10 +60,15 @@ def _check_rounds(opened: league.OpenedLeague, rounds: int) -> None:
         raise UsageError(f"--rounds: {err}") from err
 
 
+EXIT_SECONDS = 0.3  # kept back from a --budget (at most a tenth of it) for the process's exit
+
+
 def _whole_command(args: argparse.Namespace) -> engine.Hooks:
-    """Hooks whose budget is the command's whole --budget, counted from the process's start."""
+    """Hooks whose budget is the command's whole --budget, counted from the process's start,
+    less the moment the process needs to end and hand its memory back."""
     spent = time.monotonic() - args.started
-    hooks = engine.Hooks(budget=max(args.budget - spent, 0.0))
+    keep = min(EXIT_SECONDS, args.budget / 10)
+    hooks = engine.Hooks(budget=max(args.budget - spent - keep, 0.0))
     hooks.allowed = args.budget
     return hooks
 
