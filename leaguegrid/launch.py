@@ -6,10 +6,13 @@ This module chooses between the window and the command line, so neither imports 
 from __future__ import annotations
 
 import sys
+import time
 from collections.abc import Sequence
 from pathlib import Path
 
 from leaguegrid.cli.main import COMMANDS
+
+STARTED = time.monotonic()  # the process's start, from which its own command's --budget counts
 
 
 def wants_window(argv: Sequence[str]) -> bool:
@@ -49,7 +52,8 @@ def main(argv: Sequence[str] | None = None) -> int:
         return engine_process(args[1:])
     if wants_window(args):
         return open_window(Path(args[0]) if args else None)
-    return command_line(args)
+    # the process's own command line (argv None) counts its budget from the process's start
+    return command_line(args, started=STARTED if argv is None else None)
 
 
 if __name__ == "__main__":

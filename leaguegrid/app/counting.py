@@ -24,8 +24,11 @@ from leaguegrid.scheduling.constraints import CountingModel, build_model
 Number = int | engine.Estimate | None
 Progress = Callable[[float, str], None]
 RANGE_ABOVE_MIN = 4  # default table: fewest rounds up to fewest + 4
-POLYNOMIAL_SHARE = 0.5  # at most this share of the remaining budget goes to the polynomial
+ROWS_SHARE = 0.5  # in the default range, the rows' exact counts get at most this share first
 ESTIMATE_SHARE = 0.2  # this share of the whole budget is kept for estimates of unfinished rows
+POLYNOMIAL_FLOOR = 0.5  # seconds the optional polynomial gets after the rounds asked for ...
+POLYNOMIAL_TIMES = 0.5  # ... or this many times the seconds those rounds took, if more
+BUDGET, MEMORY = "budget", "memory bound"  # why exact work stopped short
 RETURN_HALF = ("return half: with K rounds, first legs in rounds 1..H and return fixtures in "
                "rounds H+1..K, H = K/2 rounded up")
 
@@ -54,6 +57,8 @@ class CountReport:
     rows: list[CountRow] = field(default_factory=list)
     complete: bool = True  # False when the budget ran out or the work was cancelled
     cancelled: bool = False
+    stopped: list[str] = field(default_factory=list)  # BUDGET and/or MEMORY, when they bit
+    polynomial_cut: bool = False  # the optional polynomial was left for the rounds asked for
     notes: list[str] = field(default_factory=list)  # e.g. pins or ties that contradict clashes
     rules_counted: list[str] = field(default_factory=list)  # in words: what the counts include
     rules_generator: list[str] = field(default_factory=list)  # enforced by the generator only
@@ -68,11 +73,15 @@ class _Stop(Exception):
     """Raised inside this module when the whole computation was cancelled."""
 
 
-def _exact(func: Callable[[], object]) -> object | None:
-    """Run one engine step: None when it hit its budget; _Stop when the job was cancelled."""
+def _exact(func: Callable[[], object], stopped: list[str] | None = None) -> object | None:
+    """Run one engine step: None when it hit its budget or the memory bound (said in
+    `stopped`, when given); _Stop when the job was cancelled."""
     try:
         return func()
-    except engine.BudgetExceeded:
+    except engine.BudgetExceeded as short:
+        why = MEMORY if isinstance(short, engine.MemoryBound) else BUDGET
+        if stopped is not None and why not in stopped:
+            stopped.append(why)
         return None
     except engine.Cancelled as stop:
         raise _Stop from stop
@@ -102,6 +111,8 @@ def count_report(
     engine.Estimate when `estimate` is set (always labelled, never shown as exact).
     """
     job = hooks or engine.Hooks()
+    began = job.clock()
+    asked = rounds is not None
     budget = job.remaining()
     exact = job.part(share=1 - ESTIMATE_SHARE) if budget is not None and estimate else job
     estimate_seconds = None if budget is None else budget * ESTIMATE_SHARE
@@ -129,11 +140,20 @@ def count_report(
             limit = len(league.rounds) if league.rounds_fixed else None
             rounds = default_rounds(report.min_rounds_bounds[0], limit)
         report.rows = [CountRow(rounds=k) for k in rounds]
-        report.polynomial = _exact(lambda: engine.chromatic_polynomial(
-            base.clashes, hooks=exact.part(0.2, 0.5, share=POLYNOMIAL_SHARE, stage="polynomial")))
-        _fill_rows(report, base, exact, estimate_seconds if estimate else None, estimate)
+        _exact_rows(report, base, exact, asked=asked)
+        _polynomial(report, base, exact, job.clock() - began if asked else None)
+        if estimate:
+            for row in report.rows:
+                if row.assignments is None or row.all_rounds_used is None:
+                    _estimate_row(report, row, base.at(row.rounds), job, estimate_seconds,
+                                  len(report.rows))
     except _Stop:
         report.cancelled = True
+    for row in report.rows:
+        row.exact = all(isinstance(v, int)
+                        for v in (row.assignments, row.all_rounds_used, row.groupings))
+    if not report.cancelled and report.min_rounds is None and not report.stopped:
+        report.stopped.append(BUDGET)
     report.complete = not report.cancelled and report.min_rounds is not None and all(
         row.exact for row in report.rows)
     return report
@@ -146,36 +166,65 @@ def _bounds(model: CountingModel) -> tuple[int, int]:
     return engine.min_rounds_bounds(model.graph, pins=model.pins, exclusions=model.exclusions)
 
 
-def _fill_rows(report: CountReport, base: CountingModel, job: engine.Hooks,
-               estimate_seconds: float | None, estimate: bool) -> None:
-    """Each row's numbers: from the polynomial when nothing but clashes constrains the league,
-    else from the counting model at K; labelled estimates where exact work ran out of budget."""
-    groups = engine.to_falling(report.polynomial) if report.polynomial is not None else None
+def _exact_rows(report: CountReport, base: CountingModel, job: engine.Hooks,
+                asked: bool) -> None:
+    """Each row's exact numbers at its K directly (the engine's fixed-K programme, its
+    fastest route), before any whole polynomial; what follows from others is filled in:
+    below the proven fewest rounds everything is 0, at the fewest every assignment uses
+    every round, and groupings are every-round-used / K! when only clashes constrain."""
+    low = report.min_rounds_bounds[0] if report.min_rounds is None else report.min_rounds
+    pool = job.part(0.2, 0.9 if asked else 0.55, share=1.0 if asked else ROWS_SHARE)
     n = max(len(report.rows), 1)
-    span = 0.25 / n
     for i, row in enumerate(report.rows):
         k = row.rounds
-        if report.min_rounds is not None and k < report.min_rounds:
+        step = pool.part(i / n, (i + 1) / n, share=1 / (n - i), stage=f"{k} rounds")
+        if k < low:
             row.assignments = row.all_rounds_used = 0
-            row.groupings = groups[k] if groups is not None and k < len(groups) else 0
+            row.groupings = 0 if not report.pinned else _groupings_at(report, base, k, row, step)
             continue
-        if groups is not None:
-            row.groupings = groups[k] if k < len(groups) else 0
-            if not report.pinned:
-                row.assignments = int(report.polynomial(k))
-                row.all_rounds_used = row.groupings * math.factorial(k)
-                continue
         model = base.at(k)
-        start = 0.5 + 0.5 * i / n
-        row.assignments = _exact(lambda m=model, s=start, k=k: m.count(
-            job.part(s, s + span, stage=f"{k} rounds")))
-        row.all_rounds_used = _exact(lambda m=model, s=start, k=k: m.count_all_rounds_used(
-            job.part(s + span, s + 2 * span, stage=f"{k} rounds, every round used")))
+        row.assignments = _exact(lambda m=model, h=step: m.count(h.part(0.0, 0.5)),
+                                 report.stopped)
+        if not report.pinned and k <= low:
+            row.all_rounds_used = row.assignments  # none can leave a round empty
+        else:
+            row.all_rounds_used = _exact(
+                lambda m=model, h=step: m.count_all_rounds_used(
+                    h.part(0.5, 0.9, stage="every round used")), report.stopped)
+        row.groupings = _groupings_at(report, base, k, row, step)
+
+
+def _polynomial(report: CountReport, base: CountingModel, job: engine.Hooks,
+                asked_took: float | None) -> None:
+    """The whole polynomial with the time left, then the rows' missing numbers from it.
+    When the rounds were asked for (`asked_took`: the seconds they took) and all counted, it
+    is optional: it gets POLYNOMIAL_FLOOR s or POLYNOMIAL_TIMES that time, whichever is more,
+    so that a bigger budget never makes the asked-for answer slower."""
+    done = all(None not in (r.assignments, r.all_rounds_used, r.groupings) for r in report.rows)
+    cap = None
+    if asked_took is not None and done:
+        cap = max(POLYNOMIAL_FLOOR, POLYNOMIAL_TIMES * asked_took)
+    stopped: list[str] = []
+    report.polynomial = _exact(lambda: engine.chromatic_polynomial(
+        base.clashes, hooks=job.part(0.55 if asked_took is None else 0.9, 1.0, seconds=cap,
+                                     stage="polynomial")), stopped)
+    if report.polynomial is None:
+        if cap is None:
+            report.stopped.extend(w for w in stopped if w not in report.stopped)
+        else:  # optional work cut short is not a reason the answer is short
+            report.polynomial_cut = True
+        return
+    groups = engine.to_falling(report.polynomial)
+    for row in report.rows:
+        k = row.rounds
+        got = groups[k] if k < len(groups) else 0
         if row.groupings is None:
-            row.groupings = _groupings_at(report, base, k, row, job, start)
-        row.exact = None not in (row.assignments, row.all_rounds_used, row.groupings)
-        if not row.exact and estimate and row.assignments is None:
-            _estimate_row(report, row, model, job, estimate_seconds, n)
+            row.groupings = got
+        if not report.pinned:
+            if row.assignments is None:
+                row.assignments = int(report.polynomial(k))
+            if row.all_rounds_used is None:
+                row.all_rounds_used = got * math.factorial(k)
 
 
 def _estimate_row(report: CountReport, row: CountRow, model: CountingModel, job: engine.Hooks,
@@ -186,12 +235,18 @@ def _estimate_row(report: CountReport, row: CountRow, model: CountingModel, job:
     every-round-used / K!."""
     k = row.rounds
     share = None if estimate_seconds is None else estimate_seconds / n
+    left = job.remaining()
+    if share is not None and left is not None:
+        share = min(share, left)
     hooks = engine.Hooks(cancel=job.cancel, budget=share, clock=job.clock, memo=job.memo)
     got = _exact(lambda: engine.estimate_counts(
-        model.graph, k, pins=model.pins, exclusions=model.exclusions, hooks=hooks))
+        model.graph, k, pins=model.pins, exclusions=model.exclusions, hooks=hooks),
+        report.stopped)
     if got is None:
         return
-    row.assignments, every = got
+    if row.assignments is None:
+        row.assignments = got[0]
+    every = got[1]
     if row.all_rounds_used is None:
         row.all_rounds_used = every
     if row.groupings is None and not report.pinned:
@@ -199,16 +254,17 @@ def _estimate_row(report: CountReport, row: CountRow, model: CountingModel, job:
         low = -(-every.low // f)  # groupings are whole: at least ceil(low / K!), 1 if low >= 1
         row.groupings = engine.Estimate((2 * every.value + f) // (2 * f), low,
                                         -(-every.high // f),
-                                        f"{every.method}, every round used / {k}!")
+                                        f"{every.method}, every round used / {k}!",
+                                        every.samples, every.found)
 
 
 def _groupings_at(report: CountReport, base: CountingModel, k: int, row: CountRow,
-                  job: engine.Hooks, start: float) -> int | None:
+                  job: engine.Hooks) -> int | None:
     """Groupings of the clash graph into exactly K rounds without the polynomial:
     every-round-used of the unconstrained graph divided by K!."""
     if report.pinned:
         unconstrained = _exact(lambda: engine.count_all_rounds_used(
-            base.clashes, k, hooks=job.part(start, start, stage=f"{k} rounds, groupings")))
+            base.clashes, k, hooks=job.part(0.9, 1.0, stage="groupings")), report.stopped)
     else:
         unconstrained = row.all_rounds_used
     return None if unconstrained is None else unconstrained // math.factorial(k)

@@ -60,6 +60,19 @@ def _check_rounds(opened: league.OpenedLeague, rounds: int) -> None:
         raise UsageError(f"--rounds: {err}") from err
 
 
+EXIT_SECONDS = 0.3  # kept back from a --budget (at most a tenth of it) for the process's exit
+
+
+def _whole_command(args: argparse.Namespace) -> engine.Hooks:
+    """Hooks whose budget is the command's whole --budget, counted from the process's start,
+    less the moment the process needs to end and hand its memory back."""
+    spent = time.monotonic() - args.started
+    keep = min(EXIT_SECONDS, args.budget / 10)
+    hooks = engine.Hooks(budget=max(args.budget - spent - keep, 0.0))
+    hooks.allowed = args.budget
+    return hooks
+
+
 def cmd_check(args: argparse.Namespace) -> int:
     opened, damaged = _read(args)
     if opened is None:
@@ -69,6 +82,7 @@ def cmd_check(args: argparse.Namespace) -> int:
 
 
 def cmd_count(args: argparse.Namespace) -> int:
+    hooks = _whole_command(args)
     opened = _open(args)
     if opened is None:
         return INPUT_PROBLEMS
@@ -77,8 +91,7 @@ def cmd_count(args: argparse.Namespace) -> int:
         first, last = args.rounds
         _check_rounds(opened, last)
         rounds = list(range(first, last + 1))
-    report = counting.count_report(opened.league, opened.graph, rounds=rounds,
-                                   hooks=engine.Hooks(budget=args.budget))
+    report = counting.count_report(opened.league, opened.graph, rounds=rounds, hooks=hooks)
     render.print_counts(report, opened.league, sys.stdout, as_json=args.json)
     return OK if report.complete else STOPPED
 

@@ -7,14 +7,17 @@ possible (proven); 4 a file could not be written; 5 stopped at the budget or can
 from __future__ import annotations
 
 import argparse
+import math
 import os
 import sys
+import time
 from collections.abc import Sequence
 from pathlib import Path
 
 from leaguegrid import __version__
 from leaguegrid.app.defaults import COUNT_BUDGET, PLAN_BUDGET, WHATIF_BUDGET
 from leaguegrid.cli.exits import OK, STOPPED, USAGE, UsageError
+from leaguegrid.core.wording import budget_problem
 
 COMMANDS = ("check", "count", "plan", "whatif", "demos", "new")
 
@@ -55,8 +58,19 @@ def _league_file(parser: argparse.ArgumentParser) -> None:
 
 
 def _budget(parser: argparse.ArgumentParser, default: float) -> None:
-    parser.add_argument("--budget", type=float, default=default, metavar="SECONDS",
+    parser.add_argument("--budget", default=default, metavar="SECONDS",
                         help=f"time limit for the whole command (default {default:g})")
+
+
+def budget_seconds(value: str | float) -> float:
+    """A --budget value as seconds: a positive, finite number, else a usage error naming it."""
+    try:
+        seconds = float(value)
+    except ValueError:
+        seconds = math.nan
+    if not math.isfinite(seconds) or seconds <= 0:
+        raise UsageError(budget_problem(str(value)))
+    return seconds
 
 
 def build_parser() -> argparse.ArgumentParser:
@@ -126,8 +140,10 @@ def _plain_output() -> None:
             stream.reconfigure(errors="replace")
 
 
-def main(argv: Sequence[str] | None = None) -> int:
-    """The command line: `leaguegrid COMMAND ...` (the launcher hands commands here)."""
+def main(argv: Sequence[str] | None = None, started: float | None = None) -> int:
+    """The command line: `leaguegrid COMMAND ...` (the launcher hands commands here, with the
+    time.monotonic() its process started at, from which a --budget counts)."""
+    started = time.monotonic() if started is None else started
     from leaguegrid.cli import commands
 
     argv = list(sys.argv[1:] if argv is None else argv)
@@ -140,6 +156,9 @@ def main(argv: Sequence[str] | None = None) -> int:
         return USAGE
     _plain_output()
     try:
+        if hasattr(args, "budget"):
+            args.budget = budget_seconds(args.budget)
+            args.started = started
         return commands.HANDLERS[args.command](args)
     except UsageError as err:
         print(f"leaguegrid {args.command}: {err}", file=sys.stderr)

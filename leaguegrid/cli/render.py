@@ -16,10 +16,17 @@ from leaguegrid.app.seasons import team_seasons
 from leaguegrid.app.whatif import WhatIfOutcome
 from leaguegrid.core.model import League, Problem
 from leaguegrid.core.wording import (
+    POLYNOMIAL_LEFT,
     REASON_KINDS,
     SCHEDULES_EXPLAINED,
     count_text,
     counted_note,
+    estimate_line,
+    estimate_marker,
+    estimate_note,
+    estimated_rows_head,
+    incomplete_text,
+    is_estimate,
     plural,
     rules_note,
     season_warnings_head,
@@ -35,11 +42,20 @@ def print_problems(problems: list[Problem], out: TextIO) -> None:
         print(str(problem), file=out)
 
 
+ESTIMATED = (("assignments", "schedules"), ("all_rounds_used", "every round"),
+             ("groupings", "groupings"))  # a row's numbers: JSON key, label under the table
+
+
 def number_json(value: Number) -> int | dict | None:
-    """JSON form: an exact int, an estimate object, or null."""
+    """JSON form: an exact int, an estimate object (integers `value`, `low`, `high`, with its
+    samples and confidence), or null (also for an estimate with none found: see its note)."""
     if value is None or isinstance(value, int):
         return value
-    return {"value": value.value, "low": value.low, "high": value.high, "method": value.method}
+    if value.samples and not value.found:
+        return None
+    return {"value": value.value, "low": value.low, "high": value.high, "method": value.method,
+            "confidence": 0.95, "samples": value.samples, "found": value.found,
+            "too_few_samples": value.too_few}
 
 
 def print_check(opened: OpenedLeague, out: TextIO) -> None:
@@ -113,9 +129,13 @@ def counts_json(report: CountReport) -> dict:
             for row in report.rows
         ],
         "complete": report.complete,
+        "stopped": None if report.complete else (
+            "cancelled" if report.cancelled else (report.stopped or ["budget"])),
         "rules_counted": report.rules_counted,
         "rules_generator": report.rules_generator,
-        "notes": report.notes,
+        "notes": report.notes + [note for row in report.rows for key, label in ESTIMATED
+                                 if (note := estimate_note(row.rounds, label,
+                                                           getattr(row, key))) is not None],
     }
 
 
@@ -135,8 +155,9 @@ def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool
         print(f"Fewest rounds: not proven; bounds {low} to {high} (a clash clique of {low} "
               f"below, a schedule with {high} rounds above)", file=out)
     poly = report.polynomial_text
-    print(f"Chromatic polynomial: {poly if poly is not None else 'not computed within the budget'}",
-          file=out)
+    if poly is None:
+        poly = POLYNOMIAL_LEFT if report.polynomial_cut else "not computed within the budget"
+    print(f"Chromatic polynomial: {poly}", file=out)
     if report.pinned:
         print("(The polynomial and the groupings are of the clash graph itself: they ignore "
               "pins; the schedules respect the pins, Together, played and blocked rounds.)",
@@ -150,11 +171,18 @@ def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool
     print(SCHEDULES_EXPLAINED, file=out)
     print("Rounds | Schedules | Using every round | Groupings", file=out)
     for row in report.rows:
-        cells = [count_text(v) for v in (row.assignments, row.all_rounds_used, row.groupings)]
+        cells = [estimate_marker(v) if is_estimate(v) else count_text(v)
+                 for v in (row.assignments, row.all_rounds_used, row.groupings)]
         print(f"{row.rounds:>6} | " + " | ".join(cells), file=out)
+    for row in report.rows:
+        estimated = [(label, getattr(row, key)) for key, label in ESTIMATED
+                     if is_estimate(getattr(row, key))]
+        if estimated:
+            print(f"\n{estimated_rows_head(row.rounds)}", file=out)
+            for label, value in estimated:
+                print(estimate_line(label, value), file=out)
     if not report.complete:
-        what = "cancelled" if report.cancelled else "stopped at the budget"
-        print(f"\nIncomplete: {what}; 'not computed' and estimates are not exact.", file=out)
+        print(f"\n{incomplete_text(report.cancelled, report.stopped)}", file=out)
 
 
 def print_plan(outcome: PlanOutcome, league: League, out: TextIO, err: TextIO) -> None:

@@ -108,12 +108,99 @@ def compact(n: int | float) -> str:
     return scientific(n)
 
 
+LINE_CHARS = 100  # the widest line holding an estimate that the command line prints
+CONFIDENCE_WORDS = "95% confidence"
+
+
+def rough(n: int | float, digits: int = 3) -> str:
+    """An estimated number as it is printed: whole below 10,000, else `digits` significant
+    digits as 2.43e42 (never every digit: an estimate has no exact digits)."""
+    n = int(n)
+    if n < 10_000:
+        return grouped(n)
+    text = str(n)
+    exp = len(text) - 1
+    lead = (int(text[:digits + 1]) + 5) // 10  # the first `digits` digits, rounded half up
+    if lead >= 10**digits:
+        lead //= 10
+        exp += 1
+    shown = str(lead)
+    return f"{shown[0]}.{shown[1:]}e{exp}" if digits > 1 else f"{shown}e{exp}"
+
+
+def estimate_marker(value: Any) -> str:
+    """An estimate as a table cell shows it: 'estimate ~2.43e42' ('no estimate' when no
+    draw found one)."""
+    if getattr(value, "samples", 0) and not getattr(value, "found", 0):
+        return "no estimate"
+    return f"estimate ~{rough(value.value)}"
+
+
+def none_found_text(samples: int) -> str:
+    """Why there is no estimate: no draw reached a valid schedule."""
+    return f"no estimate: none of {grouped(samples)} samples found one"
+
+
 def estimate_text(value: Any) -> str:
-    """An estimate in words, never mistaken for an exact count."""
-    method = getattr(value, "method", "")
-    how = f" by {method}" if method else ""
-    return (f"estimate{how}: between {compact(value.low)} and {compact(value.high)}, "
-            f"about {compact(value.value)}; not an exact count")
+    """An estimate in words, never mistaken for an exact count: its value, its interval with
+    the confidence and the number of samples, or why there is no interval."""
+    samples = getattr(value, "samples", 0)
+    found = getattr(value, "found", 0)
+    head = estimate_marker(value)
+    if samples and not found:
+        return none_found_text(samples)
+    if not samples:  # not sampled: an exact answer labelled as an estimate, or an old one
+        method = getattr(value, "method", "")
+        if value.low == value.high == value.value:
+            return f"{head} ({method})" if method else head
+        return (f"{head}: between {rough(value.low, 2)} and {rough(value.high, 2)}"
+                + (f" ({method})" if method else ""))
+    if getattr(value, "too_few", False):
+        return (f"{head}: too few samples for an interval ({grouped(found)} of "
+                f"{grouped(samples)} found one)")
+    return (f"{head}: between {rough(value.low, 2)} and {rough(value.high, 2)}, "
+            f"{CONFIDENCE_WORDS}, from {grouped(samples)} samples")
+
+
+def estimate_line(label: str, value: Any, indent: str = "  ") -> str:
+    """One printed line for one estimated number, at most LINE_CHARS characters."""
+    line = f"{indent}{label}: {estimate_text(value)}"
+    if len(line) > LINE_CHARS:
+        line = line.replace(", from ", ", ").replace(": between ", ": ").replace(" and ", " to ")
+    return line if len(line) <= LINE_CHARS else line[:LINE_CHARS - 1] + "…"
+
+
+def estimated_rows_head(rounds: int) -> str:
+    """The heading of one row's estimates, printed under the table."""
+    return f"Estimated for {plural(rounds, 'round')} (not exact counts):"
+
+
+def estimate_note(rounds: int, what: str, value: Any) -> str | None:
+    """The JSON note that takes the place of an estimate with none found (None otherwise)."""
+    samples = getattr(value, "samples", 0)
+    if samples and not getattr(value, "found", 0):
+        return f"{plural(rounds, 'round')}, {what}: {none_found_text(samples)}"
+    return None
+
+
+def incomplete_text(cancelled: bool, stopped: list[str]) -> str:
+    """Why a counts table is incomplete: cancelled, or the true limits that stopped it."""
+    if cancelled:
+        what = "cancelled"
+    else:
+        what = "stopped at " + " and at ".join(
+            "the memory bound" if why == "memory bound" else "the budget"
+            for why in (stopped or ["budget"]))
+    return f"Incomplete: {what}; 'not computed' and estimates are not exact."
+
+
+def budget_problem(text: str) -> str:
+    """Why a --budget value cannot be used."""
+    return f"--budget takes a positive number of seconds, such as 60, not {text!r}"
+
+
+POLYNOMIAL_LEFT = ("not computed: it takes longer than the rounds asked for (leave out --rounds "
+                   "to give it the budget)")
 
 
 def full_text(value: Any) -> str:
@@ -124,7 +211,7 @@ def full_text(value: Any) -> str:
     if isinstance(value, int):
         return grouped(value)
     if is_estimate(value):
-        return estimate_text(value)
+        return f"{estimate_text(value)}; not an exact count"
     return str(value)
 
 

@@ -20,7 +20,7 @@ from .api import (
 from .cost import Cost, estimate_cost
 from .estimate import Estimate
 from .falling import from_falling, to_falling
-from .hooks import BudgetExceeded, Cancelled, Hooks, NoAssignment
+from .hooks import BudgetExceeded, Cancelled, Hooks, MemoryBound, NoAssignment
 from .memo import Memo
 
 __all__ = [
@@ -30,6 +30,7 @@ __all__ = [
     "Estimate",
     "Hooks",
     "Memo",
+    "MemoryBound",
     "NoAssignment",
     "RoundsProof",
     "chromatic_polynomial",

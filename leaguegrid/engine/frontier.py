@@ -22,7 +22,7 @@ from flint import fmpz_poly
 
 from .allocator import release_freed_memory, resident_bytes
 from .graph import Graph
-from .hooks import BudgetExceeded, Hooks
+from .hooks import Hooks, MemoryBound
 from .orders import frontier_sizes
 
 State = tuple[int, ...]
@@ -315,7 +315,7 @@ def _guard(hooks: Hooks, limit: int, step: int, n: int, base: int | None) -> Che
     def check(size: int) -> None:
         hooks.check()
         if size > limit or _resident_too_high(base):
-            raise BudgetExceeded(
+            raise MemoryBound(
                 f"state table passed the memory bound ({size} states at step {step + 1} of {n})"
             )
 
@@ -436,7 +436,7 @@ def completion_tables(
             if tick % CHECK_EVERY == 0:
                 hooks.check()
                 if stored + len(nxt) > limit:
-                    raise BudgetExceeded(
+                    raise MemoryBound(
                         f"sampling tables passed the memory bound at step {step + 1} of {n}"
                     )
             for ns, _ in successors(state, vb, nb, k):

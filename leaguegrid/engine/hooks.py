@@ -28,6 +28,10 @@ class BudgetExceeded(Exception):
     """The time budget ran out before the exact result was finished."""
 
 
+class MemoryBound(BudgetExceeded):
+    """A table of the exact programme passed the memory bound before it finished."""
+
+
 class NoAssignment(Exception):
     """No valid round assignment exists for the rounds asked for (proven)."""
 

@@ -25,7 +25,7 @@ from flint import fmpz_poly
 
 from .estimate import sis_draws
 from .graph import Graph
-from .hooks import BudgetExceeded, Hooks
+from .hooks import BudgetExceeded, Hooks, MemoryBound
 
 ENV = "LEAGUEGRID_ENGINE_PROCESSES"
 PARALLEL_SCORE = 10**9  # order score from which a piece is worth a second process
@@ -64,6 +64,8 @@ def _work(conn: Connection, kind: str, adj: list[int], order: list[int], param, 
         if isinstance(out, fmpz_poly):
             out = [int(c) for c in out.coeffs()]
         conn.send(("ok", out))
+    except MemoryBound as exc:
+        conn.send(("memory", str(exc)))
     except BudgetExceeded as exc:
         conn.send(("budget", str(exc)))
     except Exception as exc:  # reported to the parent, which raises it there
@@ -91,6 +93,8 @@ class Background:
             if not self.proc.is_alive() and not self.conn.poll(0):
                 raise RuntimeError("the engine's second process stopped without an answer")
         status, payload = self.conn.recv()
+        if status == "memory":
+            raise MemoryBound(payload)
         if status == "budget":
             raise BudgetExceeded(payload)
         if status != "ok":
@@ -155,7 +159,10 @@ def estimate_draws(
     back = Background("sis", g, [], (domains, rounds, 1, half), hooks.remaining())
     try:
         weights, full = sis_draws(g, domains, rounds, hooks, random.Random(0), draws - half)
-        more, more_full = back.result(hooks)
+        try:
+            more, more_full = back.result(hooks)
+        except BudgetExceeded:  # the second process is late: this process's draws suffice
+            more, more_full = [], []
     finally:
         back.close()
     return weights + more, full + more_full

@@ -23,8 +23,8 @@ def test_a_long_exact_count_keeps_every_digit_and_gains_the_short_form() -> None
 def test_an_estimate_always_says_so() -> None:
     est = Estimate(2 * 10**30, 10**30, 4 * 10**30, "sequential importance sampling")
     assert wording.full_text(est) == wording.count_text(est) == (
-        "estimate by sequential importance sampling: between 1.00 × 10³⁰ and 4.00 × 10³⁰, "
-        "about 2.00 × 10³⁰; not an exact count")
+        "estimate ~2.00e30: between 1.0e30 and 4.0e30 (sequential importance sampling); "
+        "not an exact count")
     assert wording.cell_text(est) == "≈ 1.00 × 10³⁰–4.00 × 10³⁰ (estimate)"
     assert wording.count_text(None) == "not computed"
 
@@ -56,3 +56,48 @@ def test_printed_pages_read_plainly() -> None:
     assert wording.continued("Venue Tarn Field") == "Venue Tarn Field (continued)"
     assert wording.season_totals(9, 8, 1) == "9 home games, 8 away games, 1 bye"
     assert wording.season_totals(1, 1, 0) == "1 home game, 1 away game, 0 byes"
+
+
+def sampled(value: int, low: int, high: int, samples: int = 2000, found: int = 1800) -> Estimate:
+    return Estimate(value, low, high, "sequential importance sampling", samples, found)
+
+
+def test_an_estimate_gives_its_interval_confidence_and_samples_in_words() -> None:
+    est = sampled(2_430_000 * 10**36, 21 * 10**41, 34 * 10**41, samples=4000)
+    assert wording.estimate_text(est) == (
+        "estimate ~2.43e42: between 2.1e42 and 3.4e42, 95% confidence, from 4,000 samples")
+    assert wording.estimate_marker(est) == "estimate ~2.43e42"
+    assert wording.rough(9_999) == "9,999" and wording.rough(99_950) == "1.00e5"
+
+
+def test_a_trivial_low_end_says_too_few_samples() -> None:
+    # the 10 x 10 grid at 3 rounds once read "likely between 1 and 3.71e+20" for 5.08e20
+    est = sampled(2 * 10**20, 1, 37 * 10**19, found=1500)
+    assert est.too_few
+    assert wording.estimate_text(est) == (
+        "estimate ~2.00e20: too few samples for an interval (1,500 of 2,000 found one)")
+    assert sampled(5000, 10, 9000, found=12).too_few  # fewer than 20 draws found one
+
+
+def test_no_sample_finding_one_says_so_instead_of_an_interval() -> None:
+    est = sampled(0, 0, 6 * 10**57, found=0)
+    assert wording.estimate_text(est) == "no estimate: none of 2,000 samples found one"
+    assert wording.estimate_marker(est) == "no estimate"
+    assert wording.estimate_note(8, "schedules", est) == (
+        "8 rounds, schedules: no estimate: none of 2,000 samples found one")
+
+
+def test_estimate_lines_stay_within_a_hundred_characters() -> None:
+    widest = sampled(99_949 * 10**995, 99 * 10**996, 99 * 10**997, samples=2_000_000)
+    for label in ("schedules", "every round", "groupings"):
+        line = wording.estimate_line(label, widest)
+        assert len(line) <= wording.LINE_CHARS == 100
+        assert "estimate ~9.99e999" in line and "95% confidence" in line
+
+
+def test_incomplete_says_the_true_reason() -> None:
+    assert wording.incomplete_text(False, ["memory bound"]) == (
+        "Incomplete: stopped at the memory bound; 'not computed' and estimates are not exact.")
+    assert wording.incomplete_text(False, ["budget", "memory bound"]).startswith(
+        "Incomplete: stopped at the budget and at the memory bound;")
+    assert wording.incomplete_text(True, ["budget"]).startswith("Incomplete: cancelled;")

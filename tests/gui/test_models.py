@@ -76,7 +76,7 @@ def test_counts_model_shows_long_counts_short_and_every_digit_in_the_tooltip(qtb
         for role in range(USER + 1):
             model.index(0, 1).data(role)
     assert model.index(0, 3).data(TIP) == (
-        "estimate by draws: between 1,000 and 3,000, about 2,000; not an exact count")
+        "estimate ~2,000: between 1,000 and 3,000 (draws); not an exact count")
     model.set_report(None)
     assert model.rowCount() == 0
 
