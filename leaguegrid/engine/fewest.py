@@ -110,6 +110,11 @@ def _exact(g: Graph, ip: dict[int, int], ie: dict[int, set[int]], out: Bounds,
                 out.low, out.low_method = k + 1, "pin"
                 continue
             special = special_rounds(k, ip, ie)
+            symmetric = not special_rounds(out.high, ip, ie)
+            if symmetric:  # rounds are only names: the clique takes rounds 1..q
+                for r, v in enumerate(out.clique):
+                    doms[v] = 1 << r
+                special = (1 << len(out.clique)) - 1
             try:
                 if g.n > MAX_SEARCH:
                     raise StopIteration
@@ -119,7 +124,7 @@ def _exact(g: Graph, ip: dict[int, int], ie: dict[int, set[int]], out: Bounds,
                 if sat is None:
                     top = out.high - 1
                     sat = RoundsSat(g, top, domains_for(g.n, top, ip, ie), out.clique,
-                                    symmetric=not special_rounds(top, ip, ie), hooks=hooks)
+                                    symmetric, hooks)
                 found = sat.solve(k, hooks)
                 method = "sat"
             if found is None:
