@@ -19,7 +19,7 @@ from leaguegrid.app.defaults import LONG_WORK_SECONDS
 from leaguegrid.core import wording
 from leaguegrid.core.model import League
 from leaguegrid.core.polytext import factored
-from leaguegrid.scheduling.constraints import CountingModel, build_model
+from leaguegrid.scheduling.constraints import CountingModel, build_model, return_half
 
 Number = int | engine.Estimate | None
 Progress = Callable[[float, str], None]
@@ -123,7 +123,10 @@ def count_report(
                        for rule in base.rules_counted],
         rules_generator=list(base.rules_generator),
     )
-    _set_bounds(report, _bounds(base))
+    bounds = _bounds(base)
+    _set_bounds(report, bounds)
+    if bounds is not None and bounds.exact and return_half(league, top) is None:
+        report.min_rounds = bounds.low  # proven both ways already
     try:
         found = _exact(lambda: base.fewest_rounds_proof(
             exact.part(0.0, 0.2, stage="fewest rounds")))

@@ -165,3 +165,22 @@ def test_open_bounds_name_their_methods_when_the_budget_is_short() -> None:
     assert b.low < DIMACS["myciel5"] == b.high  # stopped before the proof below was done
     assert b.low_method in {"search", "sat"}
     assert valid(dimacs_graph("myciel5"), b.schedule, b.high)
+
+
+@settings(max_examples=40, deadline=None)
+@given(spec=graphs, symmetric=st.booleans())
+def test_the_sat_encoding_at_every_k_agrees_with_brute_force(spec, symmetric: bool) -> None:
+    G = graph_of(spec)
+    chi = brute_chromatic(G)
+    g, nodes = from_networkx(G)
+    clique = max(nx.find_cliques(G), key=len)
+    sat = RoundsSat(g, g.n, [(1 << g.n) - 1] * g.n, [nodes.index(v) for v in clique],
+                    symmetric, Hooks())
+    try:
+        for k in range(len(clique), g.n + 1):  # one solver, every k (incremental)
+            found = sat.solve(k, Hooks())
+            assert (found is not None) == (k >= chi)
+            if found is not None:
+                assert valid(G, dict(zip(nodes, found, strict=True)), k)
+    finally:
+        sat.close()
