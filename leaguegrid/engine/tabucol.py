@@ -37,6 +37,7 @@ def tabucol(
         for u in nbrs[v]:
             clash[v][colour[u]] += 1
     conflicts = sum(clash[v][colour[v]] for v in range(n)) // 2
+    clashing = {v for v in range(n) if clash[v][colour[v]]}  # fixtures in a clash now
     tabu = [[0] * k for _ in range(n)]  # move v to r forbidden until this move number
     best = conflicts
     for step in range(moves):
@@ -47,12 +48,10 @@ def tabucol(
         pick = None
         pick_delta = None
         ties = 0
-        for v in range(n):
+        for v in clashing:
             cv = colour[v]
-            here = clash[v][cv]
-            if not here:
-                continue
             row = clash[v]
+            here = row[cv]
             tv = tabu[v]
             for r in allowed[v]:
                 if r == cv:
@@ -75,6 +74,14 @@ def tabucol(
         for u in nbrs[v]:
             clash[u][old] -= 1
             clash[u][r] += 1
+            if clash[u][colour[u]]:
+                clashing.add(u)
+            else:
+                clashing.discard(u)
+        if clash[v][r]:
+            clashing.add(v)
+        else:
+            clashing.discard(v)
         tabu[v][old] = step + 1 + int(0.6 * conflicts) + rng.randrange(10)
         best = min(best, conflicts)
     return [c + 1 for c in colour] if conflicts == 0 else None
