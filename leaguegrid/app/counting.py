@@ -19,7 +19,12 @@ from leaguegrid.app.defaults import LONG_WORK_SECONDS
 from leaguegrid.core import wording
 from leaguegrid.core.model import League
 from leaguegrid.core.polytext import factored
-from leaguegrid.scheduling.constraints import CountingModel, build_model, return_half
+from leaguegrid.scheduling.constraints import (
+    CountingModel,
+    build_model,
+    model_from_clashes,
+    return_half,
+)
 
 Number = int | engine.Estimate | None
 Progress = Callable[[float, str], None]
@@ -148,12 +153,24 @@ def count_report(
 
 
 def _bounds(model: CountingModel) -> engine.RoundsBounds | None:
-    """Proven bounds on the fewest rounds with their methods (None on a contradiction)."""
+    """Proven bounds on the fewest rounds with their methods (None on a contradiction).
+
+    With Return half the split point moves with K, so the low side comes from the league
+    without it (the rule only adds constraints) and the high side from a schedule of the
+    model itself."""
     if model.contradictions:
         return None
     found = engine.fewest_rounds_bounds(model.graph, pins=model.pins,
                                         exclusions=model.exclusions)
-    return replace(found, schedule=model.expand(found.schedule))
+    if return_half(model.league, model.rounds) is None:
+        return replace(found, schedule=model.expand(found.schedule))
+    plain = model_from_clashes(model.league, model.clashes, model.rounds, use_return_half=False)
+    low = engine.fewest_rounds_bounds(plain.graph, pins=plain.pins, exclusions=plain.exclusions)
+    at_high = model.at(found.high)  # the halves of `high` rounds, not of model.rounds
+    high = found.high if all(r in at_high.domain(node) for node, r in found.schedule.items()) \
+        else model.rounds
+    return replace(found, low=low.low, low_method=low.low_method, high=high,
+                   schedule=model.expand(found.schedule))
 
 
 def _set_bounds(report: CountReport, bounds: engine.RoundsBounds | None) -> None:

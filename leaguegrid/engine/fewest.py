@@ -67,7 +67,9 @@ def fewest_bounds(g: Graph, ip: dict[int, int], ie: dict[int, set[int]], hooks: 
     top_pin = max(ip.values(), default=0)
     low = max(len(clique), top_pin, 1)
     low_method = "clique" if len(clique) == low else "pin"
-    high, colouring = greedy_assignment(g, lambda k: domains_for(g.n, k, ip, ie), hooks)
+    # a bounded number of passes, so only a cancel stops it: the bounds always have an upper side
+    high, colouring = greedy_assignment(g, lambda k: domains_for(g.n, k, ip, ie),
+                                        Hooks(cancel=hooks.cancel), start=low)
     out = Bounds(low, max(high, low), low_method, "dsatur", colouring, clique)
     if out.high == low:  # the pass used no more rounds than the lower bound: exact
         return out
@@ -104,6 +106,7 @@ def _exact(g: Graph, ip: dict[int, int], ie: dict[int, set[int]], out: Bounds,
     sat: RoundsSat | None = None
     try:
         while out.low < out.high:
+            hooks.check()
             k = out.low
             doms = domains_for(g.n, k, ip, ie)
             if doms is None:  # a pin beyond k rounds
