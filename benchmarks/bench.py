@@ -1,6 +1,6 @@
 """Benchmark runner: times the engine on the shared benchmark graphs and the demo leagues.
 
-    python -m benchmarks.bench [CASE ...] [--mode poly|fixed|table|cancel|window]
+    python -m benchmarks.bench [CASE ...] [--mode poly|fixed|table|cancel|window|fewest]
                                [--reference sage|networkx]
 
 Modes: poly (the whole polynomial), fixed (the published fixed-K counts, checked), table
@@ -8,7 +8,9 @@ Modes: poly (the whole polynomial), fixed (the published fixed-K counts, checked
 polynomial, or the 10-team round-robin's count at 9 rounds, from another thread after 1 s
 and time how long the engine takes to return),
 window (the desktop window counts a demo league for 4 s, offscreen, while a 10 ms timer
-measures the event loop's largest gap; then Cancel; target: largest gap under 200 ms).
+measures the event loop's largest gap; then Cancel; target: largest gap under 200 ms),
+fewest (the fewest rounds of the DIMACS Mycielski and queen graphs, each exact method timed
+against the others: benchmarks/dimacs.py).
 
 Each case runs in a fresh child process (so the peak resident memory is that case's own),
 with a time limit. The graphs come from ../shared/bench/cases.py beside the repository
@@ -264,12 +266,13 @@ def window_latency(leagues: list[str]) -> int:
 def main(argv: list[str] | None = None) -> int:
     ap = argparse.ArgumentParser(prog="python -m benchmarks.bench", description=__doc__)
     ap.add_argument("cases_wanted", nargs="*", metavar="CASE", help="cases to run (default all)")
-    ap.add_argument("--mode", choices=["poly", "fixed", "table", "cancel", "window"],
+    ap.add_argument("--mode", choices=["poly", "fixed", "table", "cancel", "window", "fewest"],
                     default="poly")
     ap.add_argument("--reference", choices=["sage", "networkx"])
     ap.add_argument("--refpython", default="/tmp/refenv/bin/python")
     ap.add_argument("--cases", default=str(DEFAULT_CASES))
     ap.add_argument("--limit", type=float, default=LIMIT, help="seconds per case (default 120)")
+    ap.add_argument("--cpsat-python", help="an interpreter with ortools, for --mode fewest")
     ap.add_argument("--one", help=argparse.SUPPRESS)
     ap.add_argument("--k", type=int, help=argparse.SUPPRESS)
     args = ap.parse_args(argv)
@@ -279,6 +282,10 @@ def main(argv: list[str] | None = None) -> int:
     if args.one:
         child(args)
         return 0
+    if args.mode == "fewest":
+        from benchmarks.dimacs import fewest_table
+
+        return fewest_table(args.limit, args.cpsat_python, args.cases_wanted)
     if args.mode == "window":
         return window_latency(args.cases_wanted or ["bigseason"])
     cases = load_cases(Path(args.cases))

@@ -9,7 +9,7 @@ from __future__ import annotations
 
 import math
 from collections.abc import Callable
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 
 import networkx as nx
 from flint import fmpz_poly
@@ -19,7 +19,12 @@ from leaguegrid.app.defaults import LONG_WORK_SECONDS
 from leaguegrid.core import wording
 from leaguegrid.core.model import League
 from leaguegrid.core.polytext import factored
-from leaguegrid.scheduling.constraints import CountingModel, build_model
+from leaguegrid.scheduling.constraints import (
+    CountingModel,
+    build_model,
+    model_from_clashes,
+    return_half,
+)
 
 Number = int | engine.Estimate | None
 Progress = Callable[[float, str], None]
@@ -53,6 +58,9 @@ class CountReport:
     pinned: bool
     min_rounds: int | None
     min_rounds_bounds: tuple[int, int]
+    # how each side of min_rounds_bounds is proven (engine.RoundsBounds's low/high methods)
+    min_rounds_methods: tuple[str, str] | None = None
+    min_rounds_schedule: dict[str, int] | None = None  # fixture label -> round, `high` rounds
     polynomial: fmpz_poly | None = None
     rows: list[CountRow] = field(default_factory=list)
     complete: bool = True  # False when the budget ran out or the work was cancelled
@@ -125,17 +133,22 @@ def count_report(
         clashes=base.clashes.number_of_edges(),
         pinned=constrained,
         min_rounds=None,
-        min_rounds_bounds=_bounds(base),
+        min_rounds_bounds=(0, 0),
         notes=list(base.contradictions),
         rules_counted=[RETURN_HALF if rule.startswith("return half") else rule
                        for rule in base.rules_counted],
         rules_generator=list(base.rules_generator),
     )
+    bounds = _bounds(base)
+    _set_bounds(report, bounds)
+    if bounds is not None and bounds.exact and return_half(league, top) is None:
+        report.min_rounds = bounds.low  # proven both ways already
     try:
-        found = _exact(lambda: base.fewest_rounds(exact.part(0.0, 0.2, stage="fewest rounds")))
+        found = _exact(lambda: base.fewest_rounds_proof(
+            exact.part(0.0, 0.2, stage="fewest rounds")))
         if found is not None:
-            report.min_rounds = int(found)
-            report.min_rounds_bounds = (report.min_rounds, report.min_rounds)
+            report.min_rounds = found.high
+            _set_bounds(report, found)
         if rounds is None:
             limit = len(league.rounds) if league.rounds_fixed else None
             rounds = default_rounds(report.min_rounds_bounds[0], limit)
@@ -159,11 +172,34 @@ def count_report(
     return report
 
 
-def _bounds(model: CountingModel) -> tuple[int, int]:
-    """Proven bounds on the fewest rounds (a clique below, a schedule found above)."""
+def _bounds(model: CountingModel) -> engine.RoundsBounds | None:
+    """Proven bounds on the fewest rounds with their methods (None on a contradiction).
+
+    With Return half the split point moves with K, so the low side comes from the league
+    without it (the rule only adds constraints) and the high side from a schedule of the
+    model itself."""
     if model.contradictions:
-        return (0, 0)
-    return engine.min_rounds_bounds(model.graph, pins=model.pins, exclusions=model.exclusions)
+        return None
+    found = engine.fewest_rounds_bounds(model.graph, pins=model.pins,
+                                        exclusions=model.exclusions)
+    if return_half(model.league, model.rounds) is None:
+        return replace(found, schedule=model.expand(found.schedule))
+    plain = model_from_clashes(model.league, model.clashes, model.rounds, use_return_half=False)
+    low = engine.fewest_rounds_bounds(plain.graph, pins=plain.pins, exclusions=plain.exclusions)
+    at_high = model.at(found.high)  # the halves of `high` rounds, not of model.rounds
+    high = found.high if all(r in at_high.domain(node) for node, r in found.schedule.items()) \
+        else model.rounds
+    return replace(found, low=low.low, low_method=low.low_method, high=high,
+                   schedule=model.expand(found.schedule))
+
+
+def _set_bounds(report: CountReport, bounds: engine.RoundsBounds | None) -> None:
+    """The report's bounds on the fewest rounds, the method of each side and the schedule."""
+    if bounds is None:
+        return
+    report.min_rounds_bounds = (bounds.low, bounds.high)
+    report.min_rounds_methods = (bounds.low_method, bounds.high_method)
+    report.min_rounds_schedule = dict(bounds.schedule) or None
 
 
 def _exact_rows(report: CountReport, base: CountingModel, job: engine.Hooks,

@@ -25,6 +25,8 @@ from leaguegrid.core.wording import (
     estimate_marker,
     estimate_note,
     estimated_rows_head,
+    fewest_lower_text,
+    fewest_upper_text,
     incomplete_text,
     is_estimate,
     plural,
@@ -115,6 +117,7 @@ def counts_json(report: CountReport) -> dict:
         "clashes": report.clashes,
         "min_rounds": report.min_rounds,
         "min_rounds_bounds": list(report.min_rounds_bounds),
+        "min_rounds_proof": min_rounds_proof_json(report),
         "pinned": report.pinned,
         "polynomial": None if report.polynomial is None
         else [int(c) for c in report.polynomial.coeffs()],
@@ -139,6 +142,16 @@ def counts_json(report: CountReport) -> dict:
     }
 
 
+def min_rounds_proof_json(report: CountReport) -> dict | None:
+    """The bounds on the fewest rounds with the method of each side and the schedule above."""
+    if report.min_rounds_methods is None:
+        return None
+    low, high = report.min_rounds_bounds
+    low_method, high_method = report.min_rounds_methods
+    return {"low": low, "high": high, "low_method": low_method, "high_method": high_method,
+            "schedule": report.min_rounds_schedule}
+
+
 def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool) -> None:
     """What `count` prints, as text or as one JSON object."""
     if as_json:
@@ -152,8 +165,10 @@ def print_counts(report: CountReport, league: League, out: TextIO, as_json: bool
     if report.min_rounds is not None:
         print(f"Fewest rounds: {report.min_rounds}", file=out)
     else:
-        print(f"Fewest rounds: not proven; bounds {low} to {high} (a clash clique of {low} "
-              f"below, a schedule with {high} rounds above)", file=out)
+        print(f"Fewest rounds: not proven; between {low} and {high}", file=out)
+    if report.min_rounds_methods is not None and high:
+        print(fewest_lower_text(low, report.min_rounds_methods[0]), file=out)
+        print(fewest_upper_text(high, report.min_rounds_methods[1]), file=out)
     poly = report.polynomial_text
     if poly is None:
         poly = POLYNOMIAL_LEFT if report.polynomial_cut else "not computed within the budget"

@@ -34,6 +34,30 @@ def plural(n: int, one: str, many: str | None = None) -> str:
     return f"{n} {one if n == 1 else (many or one + 's')}"
 
 
+FOUND_BY = {"dsatur": "one DSatur pass",
+            "tabucol": "tabu search", "search": "exhaustive search", "sat": "the SAT solver",
+            "count": "counting"}
+
+
+def fewest_lower_text(low: int, method: str) -> str:
+    """The proof below the fewest rounds, on one line: why low - 1 rounds are too few."""
+    why = {"clique": f"{low} fixtures clash with each other pairwise (a clique)",
+           "pin": f"a fixture is pinned to round {low}",
+           "search": f"exhaustive search found no schedule with {plural(low - 1, 'round')}",
+           "sat": (f"a SAT solver proved that no schedule fits in {plural(low - 1, 'round')} "
+                   "(unsatisfiable)"),
+           "count": f"counting found no schedule with {plural(low - 1, 'round')}"}
+    if low <= 1:
+        return f"At least {plural(low, 'round')}: the league has fixtures"
+    return f"At least {plural(low, 'round')}: {why.get(method, method)}"
+
+
+def fewest_upper_text(high: int, method: str) -> str:
+    """The proof above the fewest rounds, on one line: who found a schedule with high rounds."""
+    return (f"At most {plural(high, 'round')}: a schedule with {plural(high, 'round')} "
+            f"found by {FOUND_BY.get(method, method)}")
+
+
 def unsaved_question(before: str) -> str:
     """Save / Discard / Cancel's question, `before` what: "closing", "opening another league"."""
     return ("This league has pins, edits or a schedule that are not saved in a project file. "

@@ -3,6 +3,7 @@ rounds, uniform draws and labelled estimates. Pure: no Qt, no file I/O."""
 
 from .allocator import keep_freed_memory
 from .api import (
+    RoundsBounds,
     RoundsProof,
     chromatic_polynomial,
     count_all_rounds_used,
@@ -10,6 +11,7 @@ from .api import (
     count_table,
     estimate_assignments,
     estimate_counts,
+    fewest_rounds_bounds,
     groupings,
     min_rounds,
     min_rounds_bounds,
@@ -32,6 +34,7 @@ __all__ = [
     "Memo",
     "MemoryBound",
     "NoAssignment",
+    "RoundsBounds",
     "RoundsProof",
     "chromatic_polynomial",
     "count_all_rounds_used",
@@ -40,6 +43,7 @@ __all__ = [
     "estimate_assignments",
     "estimate_cost",
     "estimate_counts",
+    "fewest_rounds_bounds",
     "from_falling",
     "groupings",
     "keep_freed_memory",

@@ -12,17 +12,12 @@ import networkx as nx
 from flint import fmpz_poly
 
 from . import solve
-from .chromatic_number import (
-    domains_for,
-    find_assignment,
-    greedy_assignment,
-    greedy_pass,
-    max_clique,
-)
+from .chromatic_number import domains_for
 from .estimate import Estimate, summarise
 from .falling import falling, to_falling
+from .fewest import Bounds, fewest_bounds
 from .graph import Graph, from_networkx
-from .hooks import BudgetExceeded, Hooks, NoAssignment, begin
+from .hooks import Hooks, NoAssignment, begin
 from .parallel import estimate_draws
 from .pins import assignment_back, transform
 from .sampling import Sampler
@@ -215,26 +210,6 @@ def groupings(G: nx.Graph, hooks: Hooks | None = None) -> list[int]:
     return (a + [0] * (n + 1))[: n + 1]
 
 
-def _lower_bound(g: Graph, ip: dict[int, int], hooks: Hooks) -> int:
-    """A proven lower bound: the largest clique, and the largest pinned round."""
-    if g.n == 0:
-        return 0
-    return max(len(max_clique(g, hooks)), max(ip.values(), default=0), 1)
-
-
-def _special(k: int, ip: dict[int, int], ie: dict[int, set[int]]) -> int:
-    """Bitmask of rounds (bit r-1) that pins or exclusions single out."""
-    out = 0
-    for r in ip.values():
-        if r <= k:
-            out |= 1 << (r - 1)
-    for rs in ie.values():
-        for r in rs:
-            if r <= k:
-                out |= 1 << (r - 1)
-    return out
-
-
 def _never_possible(g: Graph, ip: dict[int, int], ie: dict[int, set[int]]) -> str | None:
     """Why no number of rounds can work (clashing pins, pin to an excluded round), if so."""
     if g.loop:
@@ -254,13 +229,49 @@ class RoundsProof:
 
     `schedule` is a valid assignment with `rounds` rounds; `lower` says why one fewer has
     none: "clique" (the fixtures in `clique` clash pairwise), "pin" (a fixture is pinned to
-    round `rounds`), or "search" (an exhaustive search with one round fewer found nothing).
+    round `rounds`), "search" (an exhaustive DSatur search with one round fewer found nothing)
+    or "sat" (the SAT solver proved one round fewer unsatisfiable); `upper` names who found
+    the schedule: "dsatur" (one DSatur pass), "tabucol" (tabu search), "search" or "sat".
     """
 
     rounds: int
     schedule: dict[Hashable, int]
     lower: str
     clique: list[Hashable]
+    upper: str = "search"
+
+
+@dataclass(frozen=True)
+class RoundsBounds:
+    """Proven bounds on the fewest rounds, each with its method (as in RoundsProof): a
+    schedule with `high` rounds exists (`schedule`, found by `high_method`), and none with
+    fewer than `low` (`low_method`). Exact when low == high."""
+
+    low: int
+    high: int
+    low_method: str
+    high_method: str
+    schedule: dict[Hashable, int]
+
+    @property
+    def exact(self) -> bool:
+        return self.low == self.high
+
+
+def _fewest(G: nx.Graph, pins: Pins | None, exclusions: Exclusions | None, hooks: Hooks | None,
+            partial: bool) -> tuple[Bounds, list[Hashable]]:
+    hooks = begin(hooks)
+    hooks.report(0.0, "starting")
+    g, nodes, ip, ie = _prepare(G, pins, exclusions)
+    why = _never_possible(g, ip, ie)
+    if why:
+        raise NoAssignment(why)
+    if g.n == 0:
+        return Bounds(0, 0, "clique", "dsatur", [], []), nodes
+    out = fewest_bounds(g, ip, ie, hooks, partial)
+    hooks.deadline = None
+    hooks.report(1.0, "done")
+    return out, nodes
 
 
 def min_rounds(
@@ -281,34 +292,26 @@ def min_rounds_proof(
     hooks: Hooks | None = None,
 ) -> RoundsProof:
     """The fewest rounds, a schedule using them, and why one fewer is impossible."""
+    b, nodes = _fewest(G, pins, exclusions, hooks, partial=False)
+    schedule = {node: b.colouring[i] for i, node in enumerate(nodes)}
+    return RoundsProof(b.high, schedule, b.low_method, [nodes[i] for i in b.clique],
+                       b.high_method)
+
+
+def fewest_rounds_bounds(
+    G: nx.Graph,
+    pins: Pins | None = None,
+    exclusions: Exclusions | None = None,
+    hooks: Hooks | None = None,
+) -> RoundsBounds:
+    """Proven bounds on the fewest rounds with the method of each side, as far as the budget
+    allows (BOUNDS_SECONDS when the caller gives none)."""
     hooks = begin(hooks)
-    hooks.report(0.0, "starting")
-    g, nodes, ip, ie = _prepare(G, pins, exclusions)
-    why = _never_possible(g, ip, ie)
-    if why:
-        raise NoAssignment(why)
-    if g.n == 0:
-        return RoundsProof(0, {}, "clique", [])
-    clique = max_clique(g, hooks)
-    top_pin = max(ip.values(), default=0)
-    k = max(len(clique), top_pin, 1)
-    start = k
-    doms = domains_for(g.n, k, ip, ie)
-    found = greedy_pass(g, doms) if doms else None
-    while not found:
-        doms = domains_for(g.n, k, ip, ie)
-        found = find_assignment(g, k, doms, hooks, _special(k, ip, ie)) if doms else None
-        if not found:
-            k += 1
-    if k > start:
-        lower = "search"
-    elif len(clique) == k:
-        lower = "clique"
-    else:
-        lower = "pin"
-    hooks.report(1.0, "done")
-    schedule = {node: found[i] for i, node in enumerate(nodes)}
-    return RoundsProof(k, schedule, lower, [nodes[i] for i in clique])
+    if hooks.deadline is None:
+        hooks = hooks.part(seconds=BOUNDS_SECONDS)
+    b, nodes = _fewest(G, pins, exclusions, hooks, partial=True)
+    schedule = {node: b.colouring[i] for i, node in enumerate(nodes)}
+    return RoundsBounds(b.low, b.high, b.low_method, b.high_method, schedule)
 
 
 def min_rounds_bounds(
@@ -317,33 +320,9 @@ def min_rounds_bounds(
     exclusions: Exclusions | None = None,
     hooks: Hooks | None = None,
 ) -> tuple[int, int]:
-    """Proven (low, high) for the fewest rounds: low from a clique, the largest pin and
-    exhaustive searches that failed; high from a schedule found. Equal when exact."""
-    hooks = begin(hooks)
-    if hooks.deadline is None:
-        hooks = hooks.part(seconds=BOUNDS_SECONDS)
-    hooks.report(0.0, "starting")
-    g, _, ip, ie = _prepare(G, pins, exclusions)
-    why = _never_possible(g, ip, ie)
-    if why:
-        raise NoAssignment(why)
-    if g.n == 0:
-        return 0, 0
-    low = _lower_bound(g, ip, hooks)
-    high, _ = greedy_assignment(g, lambda k: domains_for(g.n, k, ip, ie), hooks)
-    high = max(high, low)
-    try:
-        while low < high:
-            doms = domains_for(g.n, low, ip, ie)
-            if doms is not None and find_assignment(g, low, doms, hooks, _special(low, ip, ie)):
-                high = low
-            else:
-                low += 1
-    except BudgetExceeded:
-        pass
-    hooks.deadline = None
-    hooks.report(1.0, "done")
-    return low, high
+    """Proven (low, high) for the fewest rounds (fewest_rounds_bounds without the methods)."""
+    b = fewest_rounds_bounds(G, pins, exclusions, hooks)
+    return b.low, b.high
 
 
 def sample_assignment(

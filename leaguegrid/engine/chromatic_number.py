@@ -162,21 +162,23 @@ def find_assignment(
 
 
 def greedy_assignment(
-    g: Graph, domains_of: Callable[[int], list[int] | None], hooks: Hooks
+    g: Graph, domains_of: Callable[[int], list[int] | None], hooks: Hooks, start: int = 1
 ) -> tuple[int, list[int]]:
     """A quick DSatur colouring respecting pins and exclusions: (rounds used, colouring).
 
-    `domains_of(k)` gives the domains for k rounds; k grows until a greedy pass succeeds."""
+    `domains_of(k)` gives the domains for k rounds; k grows from `start` (a proven lower
+    bound) one at a time, then doubling, until a greedy pass succeeds; the rounds used are
+    the highest round the pass gave (exclusions above it do not apply, pins are below it)."""
     n = g.n
-    k = 1
+    k = max(start, 1)
     while True:
         doms = domains_of(k)
         if doms is not None:
             col = greedy_pass(g, doms)
             if col is not None:
-                return k, col
-        k += 1
-        if k > 2 * n + 64:
+                return max(col, default=k), col
+        k = k + 1 if k < start + 3 else 2 * k
+        if k > 4 * n + 64 and k > 2 * start:
             raise RuntimeError("no greedy assignment found")
         hooks.check()
 

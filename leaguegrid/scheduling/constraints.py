@@ -111,6 +111,10 @@ class CountingModel:
         """The fewest rounds for which a valid assignment exists; None when none ever does."""
         return fewest_rounds(self, hooks)
 
+    def fewest_rounds_proof(self, hooks: engine.Hooks | None = None) -> engine.RoundsBounds | None:
+        """The fewest rounds with the method of each side (fewest_rounds_proof)."""
+        return fewest_rounds_proof(self, hooks)
+
 
 def build_model(league: League, graph: nx.Graph, rounds: int) -> CountingModel:
     """The counting model of a league and its clash graph (from build_clash_graph) for K rounds."""
@@ -380,10 +384,18 @@ def _rounds_span(a: int, b: int) -> str:
 
 
 def fewest_rounds(model: CountingModel, hooks: engine.Hooks | None = None) -> int | None:
-    """The fewest rounds with a valid assignment of this model's league; None if no K works.
+    """The fewest rounds with a valid assignment of this model's league; None if no K works."""
+    proof = fewest_rounds_proof(model, hooks)
+    return None if proof is None else proof.high
 
-    Without Return half this is the engine's min_rounds with every blocked round excluded;
-    with it the split point moves with K, so each K from that lower bound up is counted."""
+
+def fewest_rounds_proof(model: CountingModel,
+                        hooks: engine.Hooks | None = None) -> engine.RoundsBounds | None:
+    """The fewest rounds proven both ways (low == high), or None if no K works.
+
+    Without Return half this is the engine's min_rounds_proof with every blocked round
+    excluded, its schedule by fixture label; with it the split point moves with K, so each K
+    from that lower bound up is counted (methods "count", no schedule)."""
     league = model.league
     top = max(
         [model.graph.number_of_nodes(), model.rounds]
@@ -393,6 +405,17 @@ def fewest_rounds(model: CountingModel, hooks: engine.Hooks | None = None) -> in
     base = model_from_clashes(league, model.clashes, top, use_return_half=False)
     if base.contradictions:
         return None
+    proof = engine.min_rounds_proof(base.counted(), pins=base.pins, exclusions=base.exclusions,
+                                    hooks=hooks)
+    if return_half(league, top) is None:
+        return engine.RoundsBounds(proof.rounds, proof.rounds, proof.lower, proof.upper,
+                                   base.expand(proof.schedule))
+    for k in range(max(proof.rounds, 1), 2 * top + 1):
+        m = model_from_clashes(league, model.clashes, k)
+        if not m.contradictions and m.count(hooks) > 0:
+            low = proof.lower if k == proof.rounds else "count"
+            return engine.RoundsBounds(k, k, low, "count", {})
+    return None
     low = engine.min_rounds(base.counted(), pins=base.pins, exclusions=base.exclusions,
                             hooks=hooks)
     if return_half(league, top) is None:

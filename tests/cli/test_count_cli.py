@@ -176,3 +176,41 @@ def test_new_writes_a_blank_league_that_checks_and_is_never_overwritten(cli, tmp
     code, _, err = cli("new", str(target))
     assert code == 2
     assert err == f"leaguegrid new: {target} exists already; choose another name\n"
+
+
+def test_count_proves_the_fewest_rounds_of_a_mycielski_league(cli, workbook, monkeypatch) -> None:
+    # DIMACS challenge: myciel4 (23 vertices, 71 edges) has chi = 5 and no triangle, so the
+    # proof below is a search, not a clique. Fixtures with their own teams, clashing by
+    # Clashes rows along the graph's edges; SEARCH_NODES = 0 sends the proof to the SAT solver.
+    import networkx as nx
+
+    from leaguegrid.engine import fewest
+
+    monkeypatch.setattr(fewest, "SEARCH_NODES", 0)
+    G = nx.mycielski_graph(5)
+    label = {v: f"T{v}a v T{v}b" for v in G}
+    book = workbook("myciel4.xlsx", {
+        "Fixtures": [("Fixture", "Home", "Away")]
+        + [(label[v], f"T{v}a", f"T{v}b") for v in G],
+        "Clashes": [("First", "Second", "Reason")]
+        + [(label[u], label[v], "graph edge") for u, v in G.edges]})
+    code, out, _ = cli("count", str(book), "--rounds", "5", "--json")
+    assert code == 0
+    data = json.loads(out)
+    assert (data["fixtures"], data["clashes"], data["min_rounds"]) == (23, 71, 5)
+    assert data["min_rounds_bounds"] == [5, 5]
+    proof = data["min_rounds_proof"]
+    assert {k: proof[k] for k in ("low", "high", "low_method")} == {
+        "low": 5, "high": 5, "low_method": "sat"}
+    assert proof["high_method"] in {"dsatur", "tabucol", "sat"}
+    schedule = proof["schedule"]
+    assert sorted(schedule) == sorted(label.values())
+    assert set(schedule.values()) == {1, 2, 3, 4, 5}
+    assert all(schedule[label[u]] != schedule[label[v]] for u, v in G.edges)
+    code, out, _ = cli("count", str(book), "--rounds", "5")
+    lines = out.splitlines()
+    assert lines[1:3] == [
+        "Fewest rounds: 5",
+        "At least 5 rounds: a SAT solver proved that no schedule fits in 4 rounds "
+        "(unsatisfiable)"]
+    assert lines[3].startswith("At most 5 rounds: a schedule with 5 rounds found by ")
