@@ -73,9 +73,9 @@ with atomic_write(sys.argv[1], "wb") as handle:
 # A child of a large process starts with that process's peak as its own ru_maxrss (Linux keeps
 # the high-water mark across fork and exec), so each case is started by a small launcher.
 LAUNCH = "import subprocess, sys; sys.exit(subprocess.run(sys.argv[1:]).returncode)"
-PEAK = ("import atexit, resource, sys\n"
+PEAK = ("import atexit, resource, sys\n"  # ru_maxrss is KiB on Linux, bytes on macOS
         "atexit.register(lambda: print('peak-kib', resource.getrusage(resource.RUSAGE_SELF)"
-        ".ru_maxrss, file=sys.__stderr__))\n")
+        ".ru_maxrss // (1024 if sys.platform == 'darwin' else 1), file=sys.__stderr__))\n")
 
 
 def run_child(code: str, args: list[str], limit: float) -> tuple[float, float, int, str]:

@@ -50,10 +50,8 @@ def round_robin(tmp_path: Path):
 ROOT = Path(__file__).resolve().parents[1]
 # A child of a large process starts with that process's peak as its own ru_maxrss (Linux keeps
 # the high-water mark across fork and exec), so the child is started by a small launcher.
-_LAUNCH = "import subprocess, sys; sys.exit(subprocess.run(sys.argv[1:]).returncode)"
-_PEAK = ("import atexit, resource, sys\n"
-         "atexit.register(lambda: print('peak-kib', resource.getrusage(resource.RUSAGE_SELF)"
-         ".ru_maxrss // (1024 if sys.platform == 'darwin' else 1), file=sys.__stderr__))\n")
+from benchmarks.hostile_project import LAUNCH as _LAUNCH  # noqa: E402
+from benchmarks.hostile_project import PEAK as _PEAK  # noqa: E402
 
 
 @pytest.fixture

@@ -17,6 +17,7 @@ from pathlib import Path
 
 import pytest
 
+from benchmarks.hostile_project import SLOW_WRITE
 from leaguegrid.app import project
 from leaguegrid.io.write.atomic import STALE_SECONDS, atomic_write, remove_stale_temporaries
 from leaguegrid.launch import main
@@ -39,15 +40,6 @@ if os.geteuid() == 0:  # root writes anywhere: write as nobody, everything impor
     os.setgid(65534)
     os.setuid(65534)
 sys.exit(main(sys.argv[1:]))
-"""
-SLOW_WRITE = """
-import sys, time
-from leaguegrid.io.write.atomic import atomic_write
-with atomic_write(sys.argv[1], "wb") as handle:
-    handle.write(b"new" * 1000)
-    handle.flush()
-    print("writing", flush=True)
-    time.sleep(60)
 """
 EFBIG = "the file would be larger than this system allows (or the disk is full)"
 OURS = re.compile(r"\.calendar\.xlsx\.[a-z0-9_]{8}\.tmp")
